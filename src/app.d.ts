@@ -1,5 +1,8 @@
 // See https://svelte.dev/docs/kit/types#app.d.ts
 declare global {
+	/** The package version, injected by vite.config.ts. */
+	const __PINCER_VERSION__: string;
+
 	namespace App {
 		interface Error {
 			message: string;
