@@ -1,0 +1,165 @@
+import { Dec } from './decimal';
+
+/**
+ * The present-value equation every kind reduces to:
+ *
+ *   NPV(x) = Σ amount · (1 + x)^(−ticks / ticksPerUnit) / (1 + fraction · x)
+ *
+ * where x is the rate being solved (per period, per unit period or effective annual). Dated
+ * bases use integer ticks (days, or finer units for act/act and calendar periods) so that one
+ * fractional power per evaluation suffices; Appendix J uses whole unit periods as ticks and
+ * its simple-interest fraction f.
+ */
+export interface ScheduleTerm {
+	ticks: number;
+	amount: Dec;
+	/** Appendix J fraction of a unit period, as an exact ratio; absent means 0. */
+	fraction?: { numerator: number; denominator: number };
+}
+
+/** A stretch of equally spaced ticks with one coefficient: summed in closed form. */
+export interface Run {
+	firstTick: number;
+	gap: number;
+	count: number;
+	coefficient: Dec;
+}
+
+export type Piece = { kind: 'single'; tick: number; coefficient: Dec } | ({ kind: 'run' } & Run);
+
+/** Terms sharing one fraction f, aggregated by tick (ascending, zero sums dropped). */
+export interface FractionGroup {
+	fraction: Dec;
+	fractionValue: number;
+	pieces: Piece[];
+	ticks: Float64Array;
+	coefficients: Float64Array;
+	magnitudes: Float64Array;
+}
+
+export interface Schedule {
+	ticksPerUnit: number;
+	/** How many units of the solved rate make a year: spaces the scan grid evenly per year. */
+	unitsPerYear: number;
+	groups: FractionGroup[];
+	maxTicks: number;
+	/** Amounts in time order (same-time amounts summed), for the sign-change tests. */
+	timeOrdered: Dec[];
+	/** True when discounting is purely compound (no simple-interest fraction). */
+	compound: boolean;
+	/** Largest fraction f; the equation is only defined for 1 + f·x > 0. */
+	maxFraction: number;
+	termCount: number;
+}
+
+const MIN_RUN = 4;
+
+function piecesOf(ticks: number[], coefficients: Dec[]): Piece[] {
+	const pieces: Piece[] = [];
+	let i = 0;
+	while (i < ticks.length) {
+		let j = i + 1;
+		if (i + 1 < ticks.length) {
+			const gap = ticks[i + 1] - ticks[i];
+			while (
+				j < ticks.length &&
+				ticks[j] - ticks[j - 1] === gap &&
+				(coefficients[j] === coefficients[i] || coefficients[j].eq(coefficients[i]))
+			) {
+				j += 1;
+			}
+			if (j - i >= MIN_RUN) {
+				pieces.push({
+					kind: 'run',
+					firstTick: ticks[i],
+					gap,
+					count: j - i,
+					coefficient: coefficients[i]
+				});
+				i = j;
+				continue;
+			}
+		}
+		pieces.push({ kind: 'single', tick: ticks[i], coefficient: coefficients[i] });
+		i += 1;
+	}
+	return pieces;
+}
+
+function gcd(a: number, b: number): number {
+	return b === 0 ? a : gcd(b, a % b);
+}
+
+/** Groups terms by fraction and tick, sums same-time amounts, and finds closed-form runs. */
+export function buildSchedule(
+	terms: ScheduleTerm[],
+	ticksPerUnit: number,
+	unitsPerYear: number
+): Schedule {
+	const byFraction = new Map<string, { fraction: Dec; byTick: Map<number, Dec> }>();
+	const byTime = new Map<number, Dec>();
+	let maxFraction = 0;
+	for (const term of terms) {
+		const numerator = term.fraction?.numerator ?? 0;
+		const denominator = term.fraction?.denominator ?? 1;
+		const divisor = numerator === 0 ? denominator : gcd(numerator, denominator);
+		const key = numerator === 0 ? '0' : `${numerator / divisor}/${denominator / divisor}`;
+		let group = byFraction.get(key);
+		if (!group) {
+			group = { fraction: new Dec(numerator).div(denominator), byTick: new Map() };
+			byFraction.set(key, group);
+		}
+		const atTick = group.byTick.get(term.ticks);
+		group.byTick.set(term.ticks, atTick === undefined ? term.amount : atTick.plus(term.amount));
+		const time = term.ticks + numerator / denominator;
+		const atTime = byTime.get(time);
+		byTime.set(time, atTime === undefined ? term.amount : atTime.plus(term.amount));
+		maxFraction = Math.max(maxFraction, numerator / denominator);
+	}
+	const groups: FractionGroup[] = [];
+	let maxTicks = 0;
+	const asNumber = new Map<Dec, number>();
+	const numberOf = (value: Dec) => {
+		let cached = asNumber.get(value);
+		if (cached === undefined) {
+			cached = value.toNumber();
+			asNumber.set(value, cached);
+		}
+		return cached;
+	};
+	for (const { fraction, byTick } of byFraction.values()) {
+		const entries = [...byTick.entries()].filter(([, sum]) => !sum.isZero());
+		if (entries.length === 0) continue;
+		entries.sort((a, b) => a[0] - b[0]);
+		const ticks = entries.map(([tick]) => tick);
+		const coefficients = entries.map(([, sum]) => sum);
+		maxTicks = Math.max(maxTicks, ticks[ticks.length - 1]);
+		groups.push({
+			fraction,
+			fractionValue: fraction.toNumber(),
+			pieces: piecesOf(ticks, coefficients),
+			ticks: Float64Array.from(ticks),
+			coefficients: Float64Array.from(coefficients, numberOf),
+			magnitudes: Float64Array.from(coefficients, (c) => Math.abs(numberOf(c)))
+		});
+	}
+	const timeOrdered = [...byTime.entries()]
+		.sort((a, b) => a[0] - b[0])
+		.map(([, sum]) => sum)
+		.filter((sum) => !sum.isZero());
+	return {
+		ticksPerUnit,
+		unitsPerYear,
+		groups,
+		maxTicks,
+		timeOrdered,
+		compound: maxFraction === 0,
+		maxFraction,
+		termCount: terms.length
+	};
+}
+
+/** Lowest rate x at which the equation is defined: above −100%, and 1 + f·x > 0 for every f. */
+export function lowestAdmissibleRate(schedule: Schedule): number {
+	return schedule.maxFraction > 1 ? -1 / schedule.maxFraction : -1;
+}
