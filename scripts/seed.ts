@@ -4,6 +4,7 @@ import { hash } from '@node-rs/argon2';
 import { eq } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
+import { appendAuditEvent } from '../src/lib/server/audit/chain.ts';
 import * as schema from '../src/lib/server/db/schema/index.ts';
 import { DEMO_PASSWORD, DEMO_USERS, DEMO_WORKSPACE } from './demo/accounts.ts';
 
@@ -41,8 +42,9 @@ try {
 				.insert(schema.memberships)
 				.values({ workspaceId: workspace.id, userId: user.id, role: demo.role });
 		}
-		await tx.insert(schema.auditEvents).values({
+		await appendAuditEvent(tx, {
 			workspaceId: workspace.id,
+			actorId: null,
 			action: 'workspace.seed',
 			subject: `workspace:${workspace.id}`,
 			payload: { note: 'demo workspace created by the seed script' }

@@ -10,6 +10,8 @@ declare global {
 		}
 		interface Locals {
 			requestId: string;
+			/** Memoised by getActor() in $lib/server/auth/guards. */
+			actor?: Promise<import('$lib/server/auth/guards').Actor | null>;
 		}
 	}
 }

@@ -30,7 +30,6 @@ export async function startApp(env: Record<string, string>): Promise<RunningApp>
 			HOST: '127.0.0.1',
 			PORT: String(port),
 			ORIGIN: baseURL,
-			AUTH_URL: baseURL,
 			...env
 		},
 		stdio: ['ignore', 'pipe', 'pipe']

@@ -14,7 +14,11 @@ export const auditEvents = pgTable(
 		/** What it happened to, as `type:id`, e.g. `loan:3f1c…`. */
 		subject: text(),
 		payload: jsonb().$type<Record<string, unknown>>().notNull().default({}),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		/** Hash of the previous event in the same workspace's chain (hex SHA-256), '' for the first. */
+		prevHash: text(),
+		/** SHA-256 over prevHash and this event's canonical content (see audit/chain.ts). */
+		hash: text()
 	},
 	(t) => [
 		index('audit_events_workspace_idx').on(t.workspaceId, t.id),

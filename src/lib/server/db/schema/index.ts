@@ -1,3 +1,5 @@
 export * from './users';
 export * from './workspaces';
 export * from './audit';
+export * from './auth';
+export * from './invitations';

@@ -1,0 +1,132 @@
+// The audit trail's hash chain. Each workspace (and the workspace-less "global" stream) is one
+// chain: an event's hash is SHA-256 over the previous event's hash and the event's canonical
+// content, so editing or deleting any row breaks every hash after it. Appends are serialised
+// per chain with a transaction-scoped advisory lock. No $env or framework imports: the seed
+// script uses this module too.
+import { createHash } from 'node:crypto';
+import { and, asc, desc, eq, gt, isNull, sql } from 'drizzle-orm';
+import { auditEvents } from '../db/schema/audit';
+import type { Executor } from '../db/types';
+
+export type AuditInput = {
+	workspaceId: string | null;
+	actorId: string | null;
+	/** `domain.verb`, e.g. `auth.signin`, `member.invite`, `loan.update`. */
+	action: string;
+	/** `type:id` of what the event is about. */
+	subject?: string | null;
+	payload?: Record<string, unknown>;
+};
+
+type ChainedContent = Required<AuditInput> & { createdAt: Date };
+
+/** JSON with object keys sorted at every depth, so equal content always hashes the same. */
+export function canonicalJson(value: unknown): string {
+	if (value === null || typeof value !== 'object') return JSON.stringify(value ?? null);
+	if (value instanceof Date) return JSON.stringify(value.toISOString());
+	if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`;
+	const entries = Object.entries(value as Record<string, unknown>)
+		.filter(([, v]) => v !== undefined)
+		.sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+	return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
+}
+
+export function eventHash(prevHash: string, event: ChainedContent): string {
+	const content = canonicalJson({
+		workspaceId: event.workspaceId,
+		actorId: event.actorId,
+		action: event.action,
+		subject: event.subject,
+		payload: event.payload,
+		createdAt: event.createdAt.toISOString()
+	});
+	return createHash('sha256').update(`${prevHash}\n${content}`).digest('hex');
+}
+
+const chainOf = (workspaceId: string | null) =>
+	workspaceId === null ? isNull(auditEvents.workspaceId) : eq(auditEvents.workspaceId, workspaceId);
+
+/** Appends one event to its workspace's chain. Call inside the transaction of the change it records. */
+export async function appendAuditEvent(
+	tx: Executor,
+	input: AuditInput
+): Promise<{ id: number; hash: string }> {
+	const key = `pincer.audit:${input.workspaceId ?? 'global'}`;
+	await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${key}, 0))`);
+	const [last] = await tx
+		.select({ hash: auditEvents.hash })
+		.from(auditEvents)
+		.where(chainOf(input.workspaceId))
+		.orderBy(desc(auditEvents.id))
+		.limit(1);
+	const content: ChainedContent = {
+		workspaceId: input.workspaceId,
+		actorId: input.actorId,
+		action: input.action,
+		subject: input.subject ?? null,
+		payload: input.payload ?? {},
+		createdAt: new Date()
+	};
+	const prevHash = last?.hash ?? '';
+	const hash = eventHash(prevHash, content);
+	const [row] = await tx
+		.insert(auditEvents)
+		.values({ ...content, prevHash, hash })
+		.returning({ id: auditEvents.id });
+	return { id: row.id, hash };
+}
+
+export type ChainCheck =
+	| { intact: true; events: number }
+	| { intact: false; events: number; brokenAt: { id: number; action: string; reason: string } };
+
+/** Recomputes a workspace's chain from its first event; reports the first event that fails. */
+export async function checkChain(db: Executor, workspaceId: string | null): Promise<ChainCheck> {
+	let prevHash = '';
+	let events = 0;
+	let afterId = 0;
+	for (;;) {
+		const batch = await db
+			.select()
+			.from(auditEvents)
+			.where(and(chainOf(workspaceId), gt(auditEvents.id, afterId)))
+			.orderBy(asc(auditEvents.id))
+			.limit(2000);
+		if (batch.length === 0) return { intact: true, events };
+		for (const row of batch) {
+			events++;
+			if ((row.prevHash ?? '') !== prevHash) {
+				return {
+					intact: false,
+					events,
+					brokenAt: {
+						id: row.id,
+						action: row.action,
+						reason: 'the event before it is missing or was changed'
+					}
+				};
+			}
+			const expected = eventHash(prevHash, {
+				workspaceId: row.workspaceId,
+				actorId: row.actorId,
+				action: row.action,
+				subject: row.subject,
+				payload: row.payload,
+				createdAt: row.createdAt
+			});
+			if (expected !== row.hash) {
+				return {
+					intact: false,
+					events,
+					brokenAt: {
+						id: row.id,
+						action: row.action,
+						reason: 'its content no longer matches its hash'
+					}
+				};
+			}
+			prevHash = row.hash;
+			afterId = row.id;
+		}
+	}
+}
