@@ -24,7 +24,7 @@ trap 'exit 143' TERM
 
 bash "$ROOT/scripts/db.sh" start
 node_modules/.bin/tsx scripts/migrate.ts || die "migrations failed"
-node_modules/.bin/tsx scripts/seed.ts || die "seeding the demo workspace failed"
+node_modules/.bin/tsx --tsconfig scripts/tsconfig.json scripts/seed.ts || die "seeding the demo workspace failed"
 start_fakes
 node_modules/.bin/vite dev --host "$HOST" --port "$PORT" &
 wait $!

@@ -17,6 +17,6 @@ PGPASSWORD="$PINCER_DB_SUPERPASSWORD" "$(pg_bindir)/psql" -h 127.0.0.1 -p "$PGPO
 	-v ON_ERROR_STOP=1 -q -c 'drop database if exists pincer with (force)'
 bash scripts/db.sh start
 node_modules/.bin/tsx scripts/migrate.ts
-node_modules/.bin/tsx scripts/seed.ts
+node_modules/.bin/tsx --tsconfig scripts/tsconfig.json scripts/seed.ts
 [ -n "$was_running" ] || bash scripts/db.sh stop
 say "demo data reset"

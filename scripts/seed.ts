@@ -1,12 +1,13 @@
 // Seeds the invented demo workspace once. Idempotent: each part checks whether it already
 // exists and leaves existing rows (and anything users changed) alone.
 import { hash } from '@node-rs/argon2';
-import { eq } from 'drizzle-orm';
+import { count, eq } from 'drizzle-orm';
 import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
 import { appendAuditEvent } from '../src/lib/server/audit/chain.ts';
 import * as schema from '../src/lib/server/db/schema/index.ts';
 import { DEMO_PASSWORD, DEMO_USERS, DEMO_WORKSPACE } from './demo/accounts.ts';
+import { DEMO_LOANS } from './demo/loans.ts';
 
 const url = process.env.DATABASE_URL;
 if (!url) {
@@ -28,7 +29,12 @@ try {
 		}
 		const [workspace] = await tx
 			.insert(schema.workspaces)
-			.values({ name: DEMO_WORKSPACE.name, slug: DEMO_WORKSPACE.slug, seats: 10 })
+			.values({
+				name: DEMO_WORKSPACE.name,
+				slug: DEMO_WORKSPACE.slug,
+				seats: 10,
+				subscriptionStatus: 'active'
+			})
 			.returning();
 		const passwordHash = await hash(DEMO_PASSWORD);
 		for (const demo of DEMO_USERS) {
@@ -51,9 +57,41 @@ try {
 		});
 		console.error(`[pincer] demo workspace "${DEMO_WORKSPACE.name}" seeded`);
 	});
+	await seedLoans();
 } catch (err) {
 	console.error(`[pincer] seeding failed: ${(err as Error).message}`);
 	process.exitCode = 1;
 } finally {
 	await client.end();
+	const { sqlClient } = await import('$lib/server/db');
+	await sqlClient.end();
+}
+
+/** The demo loan files, through the same service the screens use (solved and audited). */
+async function seedLoans() {
+	const [workspace] = await db
+		.select({ id: schema.workspaces.id })
+		.from(schema.workspaces)
+		.where(eq(schema.workspaces.slug, DEMO_WORKSPACE.slug));
+	if (!workspace) return;
+	const [{ n }] = await db
+		.select({ n: count() })
+		.from(schema.loans)
+		.where(eq(schema.loans.workspaceId, workspace.id));
+	if (n > 0) return;
+	const [officer] = await db
+		.select({ id: schema.users.id })
+		.from(schema.users)
+		.where(eq(schema.users.email, DEMO_USERS.find((u) => u.role === 'officer')!.email));
+	if (!officer) return;
+	const { createLoan, markDisclosed } = await import('$lib/server/loans');
+	const { runToleranceCheck } = await import('$lib/server/loans/checks');
+	const acting = { workspaceId: workspace.id, actorId: officer.id };
+	for (const demo of DEMO_LOANS) {
+		const saved = await createLoan(acting, demo.file);
+		if (!saved.ok) throw new Error(`demo loan: ${saved.message}`);
+		if (demo.disclose) await markDisclosed(acting, saved.loanId);
+		if (demo.check) await runToleranceCheck(acting, saved.loanId, { disclosedApr: demo.check.apr });
+	}
+	console.error(`[pincer] ${DEMO_LOANS.length} demo loan files seeded`);
 }

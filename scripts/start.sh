@@ -35,7 +35,7 @@ trap 'exit 143' TERM
 bash "$ROOT/scripts/db.sh" start
 DB_STARTED=1
 node_modules/.bin/tsx scripts/migrate.ts || die "migrations failed; the data folder .data/pg is untouched"
-node_modules/.bin/tsx scripts/seed.ts || die "seeding the demo workspace failed"
+node_modules/.bin/tsx --tsconfig scripts/tsconfig.json scripts/seed.ts || die "seeding the demo workspace failed"
 start_fakes
 
 stamp="$ROOT/build/.built-at"

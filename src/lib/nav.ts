@@ -1,7 +1,7 @@
 // The app's screens and which roles see them. Only screens that exist are listed.
 export type Role = 'admin' | 'officer' | 'analyst' | 'reviewer';
 export type NavItem = {
-	href: '/app' | '/app/audit' | '/app/settings/team' | '/app/settings/account';
+	href: '/app' | '/app/loans' | '/app/audit' | '/app/settings/team' | '/app/settings/account';
 	label: string;
 	roles: Role[];
 };
@@ -10,6 +10,7 @@ const everyone: Role[] = ['admin', 'officer', 'analyst', 'reviewer'];
 
 export const navItems: NavItem[] = [
 	{ href: '/app', label: 'Desk', roles: everyone },
+	{ href: '/app/loans', label: 'Loans', roles: everyone },
 	{ href: '/app/audit', label: 'Audit trail', roles: ['admin', 'reviewer'] },
 	{ href: '/app/settings/team', label: 'Team', roles: ['admin'] },
 	{ href: '/app/settings/account', label: 'Account', roles: everyone }

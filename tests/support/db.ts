@@ -40,10 +40,14 @@ export async function dropDatabase(name: string): Promise<void> {
 
 /** Runs one of the project's tsx scripts (migrate, seed) against a database. */
 export function runScript(script: string, databaseUrl: string): string {
-	return execFileSync(`${repoRoot}/node_modules/.bin/tsx`, [`scripts/${script}.ts`], {
-		cwd: repoRoot,
-		env: { ...process.env, DATABASE_URL: databaseUrl },
-		encoding: 'utf8',
-		stdio: ['ignore', 'pipe', 'pipe']
-	});
+	return execFileSync(
+		`${repoRoot}/node_modules/.bin/tsx`,
+		['--tsconfig', 'scripts/tsconfig.json', `scripts/${script}.ts`],
+		{
+			cwd: repoRoot,
+			env: { ...process.env, DATABASE_URL: databaseUrl },
+			encoding: 'utf8',
+			stdio: ['ignore', 'pipe', 'pipe']
+		}
+	);
 }

@@ -1,5 +1,6 @@
 // Starts the local fakes (fakes/<name>/server.ts) on free ports for end-to-end tests.
 import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import { freePort, repoRoot } from './server';
 
 export type RunningFake = {
@@ -52,6 +53,34 @@ export async function startInbox(): Promise<RunningFake> {
 	return {
 		env: { SMTP_URL: `smtp://127.0.0.1:${smtpPort}` },
 		urls: { inbox: `http://127.0.0.1:${webPort}` },
+		stop: stopper(child)
+	};
+}
+
+/**
+ * The local Stripe (fakes/stripe) on a free port. Point the SDK at `urls.api` (host 127.0.0.1,
+ * that port, protocol http); webhooks go to `webhookUrl`, signed with `env.STRIPE_WEBHOOK_SECRET`.
+ */
+export async function startStripeFake(
+	options: { webhookUrl?: string; webhookSecret?: string } = {}
+): Promise<RunningFake> {
+	const port = await freePort();
+	const secret = options.webhookSecret ?? `whsec_${randomBytes(24).toString('hex')}`;
+	const child = spawn(`${repoRoot}/node_modules/.bin/tsx`, ['fakes/stripe/server.ts'], {
+		cwd: repoRoot,
+		env: {
+			...process.env,
+			PINCER_STRIPE_PORT: String(port),
+			PINCER_STRIPE_WEBHOOK_URL: options.webhookUrl ?? '',
+			PINCER_STRIPE_PUBLIC_URL: '',
+			STRIPE_WEBHOOK_SECRET: secret
+		},
+		stdio: ['ignore', 'pipe', 'pipe']
+	});
+	await waitForReady(child, 'stripe');
+	return {
+		env: { STRIPE_WEBHOOK_SECRET: secret, PINCER_STRIPE_PORT: String(port) },
+		urls: { api: `http://127.0.0.1:${port}` },
 		stop: stopper(child)
 	};
 }

@@ -8,6 +8,7 @@ import { memberships, passwordResets, users, workspaces } from '../db/schema';
 
 export const RESET_MINUTES = 30;
 export const TRIAL_SEATS = 3;
+export const TRIAL_DAYS = 14;
 
 function slugify(name: string): string {
 	const base = name
@@ -43,7 +44,13 @@ export async function signUp(
 		}
 		const [workspace] = await tx
 			.insert(workspaces)
-			.values({ name: input.workspace, slug: slugify(input.workspace), seats: TRIAL_SEATS })
+			.values({
+				name: input.workspace,
+				slug: slugify(input.workspace),
+				seats: TRIAL_SEATS,
+				subscriptionStatus: 'trialing',
+				trialEndsAt: new Date(Date.now() + TRIAL_DAYS * 86_400_000)
+			})
 			.returning({ id: workspaces.id });
 		const [membership] = await tx
 			.insert(memberships)

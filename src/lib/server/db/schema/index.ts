@@ -3,3 +3,7 @@ export * from './workspaces';
 export * from './audit';
 export * from './auth';
 export * from './invitations';
+export * from './solves';
+export * from './loans';
+export * from './deals';
+export * from './billing';

@@ -21,6 +21,12 @@ export const workspaces = pgTable('workspaces', {
 	slug: text().notNull().unique(),
 	/** Seats paid for (or granted by the trial); active members never exceed it. */
 	seats: integer().notNull().default(3),
+	/** trialing | active | past_due | canceled | unpaid | incomplete (the payment provider's words). */
+	subscriptionStatus: text().notNull().default('trialing'),
+	trialEndsAt: timestamp({ withTimezone: true }),
+	stripeCustomerId: text(),
+	stripeSubscriptionId: text(),
+	currentPeriodEnd: timestamp({ withTimezone: true }),
 	createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 	updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 });

@@ -1,0 +1,42 @@
+import Decimal from 'decimal.js';
+import type { SolveRequest, SolveResult } from '$lib/schemas/solve';
+import { solve } from '../solver';
+
+export type TraceRun = {
+	method: 'bisection' | 'itp';
+	bracket: { low: string; high: string };
+	result: SolveResult;
+};
+
+/**
+ * A textbook bracket around a solved rate (in the unit the engine solves in: per period for irr
+ * and apr-us, per year for dated kinds): [0, 1] for rates from 0 to 100%, widened for larger
+ * ones, [−0.5, 0] or [−0.99, 0] for negative ones.
+ */
+export function textbookBracket(solvedRate: string): { low: string; high: string } {
+	const r = new Decimal(solvedRate);
+	if (r.gte(0)) return { low: '0', high: r.lt(1) ? '1' : r.times(2).plus(1).toFixed(0) };
+	return { low: r.gt(-0.5) ? '-0.5' : '-0.99', high: '0' };
+}
+
+/**
+ * Re-runs a stored request twice on the same explicit bracket, by bisection and by ITP, with the
+ * trace on: what the Trace sections show side by side. Decided in decimal like every solve.
+ */
+export function traceRuns(request: SolveRequest, stored: SolveResult): TraceRun[] | null {
+	const root = stored.status === 'solved' ? stored.roots[0] : null;
+	if (!root) return null;
+	const solvedRate = root.ratePerPeriod ?? (request.kind === 'irr' ? root.rate : null) ?? root.rate;
+	const bracket = textbookBracket(solvedRate);
+	return (['bisection', 'itp'] as const).map((method) => ({
+		method,
+		bracket,
+		result: solve({
+			...request,
+			method,
+			bracket,
+			trace: true,
+			stop: { rateTolerance: '1e-12' }
+		} as SolveRequest)
+	}));
+}
