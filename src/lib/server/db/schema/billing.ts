@@ -1,12 +1,4 @@
-import {
-	index,
-	integer,
-	pgTable,
-	text,
-	timestamp,
-	uuid,
-	primaryKey
-} from 'drizzle-orm/pg-core';
+import { index, integer, pgTable, text, timestamp, uuid, primaryKey } from 'drizzle-orm/pg-core';
 import { users } from './users';
 import { roleEnum, workspaces } from './workspaces';
 
