@@ -11,6 +11,7 @@ const everyone: Role[] = ['admin', 'officer', 'analyst', 'reviewer'];
 export const navItems: NavItem[] = [
 	{ href: '/app', label: 'Desk', roles: everyone },
 	{ href: '/app/loans', label: 'Loans', roles: everyone },
+	{ href: '/app/deals', label: 'Deals', roles: everyone },
 	{ href: '/app/audit', label: 'Audit trail', roles: ['admin', 'reviewer'] },
 	{ href: '/app/settings/team', label: 'Team', roles: ['admin'] },
 	{ href: '/app/settings/account', label: 'Account', roles: everyone }

@@ -1,0 +1,179 @@
+// Everything the deal page shows about a set of flows, decided in decimal: every rate with its
+// certificate, NPV at the hurdle, MIRR, paybacks, the NPV profile and the trace. Pure; no I/O.
+import Decimal from 'decimal.js';
+import type { DealContent } from '../../schemas/deal';
+import type { SolveRequest, SolveResult } from '../../schemas/solve';
+import { solve } from '../solver';
+import { Dec } from '../solver/decimal';
+import { dayCountTicks, parseDate } from '../solver/day-count';
+import { bisectionCount } from '../solver/decimal';
+import { datedNpv, npv } from '../solver/npv';
+import { mirr } from '../solver/mirr';
+import { npvProfile } from '../solves/profile';
+import {
+	datedDiscountedPayback,
+	datedSimplePayback,
+	discountedPayback,
+	simplePayback
+} from './payback';
+
+const D = Decimal.clone({ precision: 40 });
+
+/** Investor-view flows: the borrower view flips every sign. Dated flows sorted; periodic summed per period. */
+export function investorFlows(content: DealContent) {
+	const flip = content.signConvention === 'borrower';
+	const amount = (a: string) => (flip ? new D(a).neg() : new D(a));
+	if (content.mode === 'dated') {
+		const flows = content.flows
+			.map((f) => ({ date: f.date!, amount: amount(f.amount) }))
+			.sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+		return {
+			mode: 'dated' as const,
+			dated: flows.map((f) => ({ date: f.date, amount: f.amount.toString() })),
+			periodic: [] as string[]
+		};
+	}
+	const last = Math.max(...content.flows.map((f) => f.period ?? 0));
+	const sums = Array.from({ length: last + 1 }, () => new D(0));
+	for (const f of content.flows) sums[f.period ?? 0] = sums[f.period ?? 0].plus(amount(f.amount));
+	return { mode: 'periodic' as const, dated: [], periodic: sums.map((s) => s.toString()) };
+}
+
+const fraction = (percent: string) => new D(percent).div(100);
+/** The per-period rate equivalent to an effective annual rate: (1 + R)^(1/m) − 1. */
+const perPeriod = (annual: Decimal, m: number) => annual.plus(1).pow(new D(1).div(m)).minus(1);
+
+export function solveRequestFor(content: DealContent): SolveRequest {
+	const flows = investorFlows(content);
+	const stop = {
+		rateTolerance: content.rateTolerance,
+		maxIterations: content.maxIterations,
+		combine: content.combine,
+		...(content.residualTolerance ? { residualTolerance: content.residualTolerance } : {})
+	};
+	return flows.mode === 'dated'
+		? {
+				kind: 'dated-irr',
+				flows: flows.dated,
+				dayCount: content.dayCount,
+				method: content.method,
+				stop,
+				trace: true
+			}
+		: {
+				kind: 'irr',
+				flows: flows.periodic,
+				periodsPerYear: content.periodsPerYear,
+				method: content.method,
+				stop,
+				trace: true
+			};
+}
+
+/** Dated MIRR: outflows discounted at the finance rate to the first date, inflows compounded at the
+ * reinvestment rate to the last; (FV / PV)^(1/T) − 1 with T in years of the day count. Effective annual. */
+function datedMirr(
+	flows: { date: string; amount: string }[],
+	finance: Decimal,
+	reinvest: Decimal,
+	dayCount: DealContent['dayCount']
+) {
+	const basis = dayCountTicks(dayCount);
+	const start = parseDate(flows[0].date);
+	const years = (date: string) =>
+		new D(basis.ticks(start, parseDate(date))).div(basis.ticksPerYear);
+	const total = years(flows[flows.length - 1].date);
+	if (total.lte(0)) return null;
+	let pv = new D(0);
+	let fv = new D(0);
+	for (const f of flows) {
+		const a = new D(f.amount);
+		if (a.isNeg()) pv = pv.plus(a.div(finance.plus(1).pow(years(f.date))));
+		else fv = fv.plus(a.times(reinvest.plus(1).pow(total.minus(years(f.date)))));
+	}
+	if (pv.isZero() || fv.isZero()) return null;
+	return fv.div(pv.neg()).pow(new D(1).div(total)).minus(1).toString();
+}
+
+export type DealAnalysis = ReturnType<typeof analyseDeal>;
+
+export function analyseDeal(content: DealContent) {
+	const flows = investorFlows(content);
+	const request = solveRequestFor(content);
+	const result: SolveResult = solve(request);
+	const m = content.periodsPerYear;
+	const hurdle = fraction(content.hurdleRate);
+	const finance = fraction(content.financeRate);
+	const reinvest = fraction(content.reinvestRate);
+	const rates = result.roots.map((root) => {
+		if (flows.mode === 'dated')
+			return { effectiveAnnual: root.rate, certificate: root.certificate };
+		const r = new D(root.rate);
+		return {
+			perPeriod: root.rate,
+			nominalAnnual: r.times(m).toString(),
+			effectiveAnnual: r.plus(1).pow(m).minus(1).toString(),
+			certificate: root.certificate
+		};
+	});
+	let npvAtHurdle: string;
+	let mirrAnnual: string | null;
+	let payback;
+	if (flows.mode === 'dated') {
+		npvAtHurdle = datedNpv(flows.dated, hurdle.toString(), content.dayCount);
+		mirrAnnual =
+			flows.dated.length > 1 ? datedMirr(flows.dated, finance, reinvest, content.dayCount) : null;
+		payback = {
+			simple: datedSimplePayback(flows.dated),
+			discounted: datedDiscountedPayback(flows.dated, hurdle.toString())
+		};
+	} else {
+		const h = perPeriod(hurdle, m);
+		npvAtHurdle = npv(flows.periodic, h.toString());
+		const perPeriodMirr = mirr(
+			flows.periodic,
+			perPeriod(finance, m).toString(),
+			perPeriod(reinvest, m).toString()
+		);
+		mirrAnnual =
+			perPeriodMirr === null ? null : new D(perPeriodMirr).plus(1).pow(m).minus(1).toString();
+		payback = {
+			simple: simplePayback(flows.periodic),
+			discounted: discountedPayback(flows.periodic, h.toString())
+		};
+	}
+	// The chart's range is typed in % per year; in periodic mode plot per-period rates.
+	let low =
+		flows.mode === 'dated'
+			? fraction(content.profileLow)
+			: perPeriod(fraction(content.profileLow), m);
+	let high =
+		flows.mode === 'dated'
+			? fraction(content.profileHigh)
+			: perPeriod(fraction(content.profileHigh), m);
+	// Widen the chart to show every root (the analyst's range is kept where it already does).
+	for (const root of result.roots) {
+		const r = new D(root.rate);
+		const margin = D.max(r.abs().times(0.2), new D('0.02'));
+		if (r.minus(margin).lt(low)) low = D.max(r.minus(margin), new D('-0.99'));
+		if (r.plus(margin).gt(high)) high = r.plus(margin);
+	}
+	const profile = npvProfile(request, low.toString(), high.toString(), 121);
+	const predictedForRange = bisectionCount(
+		new Dec(high.minus(low)),
+		new Dec(content.rateTolerance)
+	);
+	return {
+		mode: flows.mode,
+		flowCount: flows.mode === 'dated' ? flows.dated.length : flows.periodic.length,
+		result,
+		rates,
+		hurdleInUnit: flows.mode === 'dated' ? hurdle.toString() : perPeriod(hurdle, m).toString(),
+		npvAtHurdle,
+		mirrAnnual,
+		payback,
+		profile,
+		predictedForRange,
+		rateUnit: flows.mode === 'dated' ? 'rate per year (effective)' : `rate per period (${m} a year)`
+	};
+}
