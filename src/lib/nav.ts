@@ -1,7 +1,13 @@
 // The app's screens and which roles see them. Only screens that exist are listed.
 export type Role = 'admin' | 'officer' | 'analyst' | 'reviewer';
 export type NavItem = {
-	href: '/app' | '/app/loans' | '/app/audit' | '/app/settings/team' | '/app/settings/account';
+	href:
+		| '/app'
+		| '/app/loans'
+		| '/app/deals'
+		| '/app/audit'
+		| '/app/settings/team'
+		| '/app/settings/account';
 	label: string;
 	roles: Role[];
 };
