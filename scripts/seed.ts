@@ -7,6 +7,7 @@ import postgres from 'postgres';
 import { appendAuditEvent } from '../src/lib/server/audit/chain.ts';
 import * as schema from '../src/lib/server/db/schema/index.ts';
 import { DEMO_PASSWORD, DEMO_USERS, DEMO_WORKSPACE } from './demo/accounts.ts';
+import { DEMO_DEALS } from './demo/deals.ts';
 import { DEMO_LOANS } from './demo/loans.ts';
 
 const url = process.env.DATABASE_URL;
@@ -58,6 +59,7 @@ try {
 		console.error(`[pincer] demo workspace "${DEMO_WORKSPACE.name}" seeded`);
 	});
 	await seedLoans();
+	await seedDeals();
 } catch (err) {
 	console.error(`[pincer] seeding failed: ${(err as Error).message}`);
 	process.exitCode = 1;
@@ -94,4 +96,38 @@ async function seedLoans() {
 		if (demo.check) await runToleranceCheck(acting, saved.loanId, { disclosedApr: demo.check.apr });
 	}
 	console.error(`[pincer] ${DEMO_LOANS.length} demo loan files seeded`);
+}
+
+/** The demo deals (one with two rates, one with a scenario), through the deals service. */
+async function seedDeals() {
+	const [workspace] = await db
+		.select({ id: schema.workspaces.id })
+		.from(schema.workspaces)
+		.where(eq(schema.workspaces.slug, DEMO_WORKSPACE.slug));
+	if (!workspace) return;
+	const [{ n }] = await db
+		.select({ n: count() })
+		.from(schema.deals)
+		.where(eq(schema.deals.workspaceId, workspace.id));
+	if (n > 0) return;
+	const [analyst] = await db
+		.select({ id: schema.users.id })
+		.from(schema.users)
+		.where(eq(schema.users.email, DEMO_USERS.find((u) => u.role === 'analyst')!.email));
+	if (!analyst) return;
+	const { createDeal, createScenario, updateDeal } = await import('$lib/server/deals');
+	const { dealContentSchema } = await import('$lib/schemas/deal');
+	const acting = { workspaceId: workspace.id, actorId: analyst.id };
+	for (const demo of DEMO_DEALS) {
+		const content = dealContentSchema.parse(demo.content);
+		const created = await createDeal(acting, demo.name, content);
+		if (demo.scenario && created) {
+			const copy = await createScenario(acting, created.dealId);
+			if (copy) {
+				const changed = dealContentSchema.parse(demo.scenario(demo.content));
+				await updateDeal(acting, copy.dealId, `${demo.name} — scenario 1`, changed);
+			}
+		}
+	}
+	console.error(`[pincer] ${DEMO_DEALS.length} demo deals seeded`);
 }

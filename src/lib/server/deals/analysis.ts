@@ -7,7 +7,7 @@ import { solve } from '../solver';
 import { Dec } from '../solver/decimal';
 import { dayCountTicks, parseDate } from '../solver/day-count';
 import { bisectionCount } from '../solver/decimal';
-import { datedNpv, npv } from '../solver/npv';
+import { datedNpv, datedSchedule, evaluateDecimal, npv } from '../solver/npv';
 import { mirr } from '../solver/mirr';
 import { npvProfile } from '../solves/profile';
 import {
@@ -70,8 +70,11 @@ export function solveRequestFor(content: DealContent): SolveRequest {
 			};
 }
 
-/** Dated MIRR: outflows discounted at the finance rate to the first date, inflows compounded at the
- * reinvestment rate to the last; (FV / PV)^(1/T) − 1 with T in years of the day count. Effective annual. */
+/**
+ * Dated MIRR: outflows discounted at the finance rate to the first date, inflows compounded at
+ * the reinvestment rate to the last; (FV / −PV)^(1/T) − 1 with T in years of the day count.
+ * Effective annual. Present values through the engine's decimal evaluator.
+ */
 function datedMirr(
 	flows: { date: string; amount: string }[],
 	finance: Decimal,
@@ -80,19 +83,25 @@ function datedMirr(
 ) {
 	const basis = dayCountTicks(dayCount);
 	const start = parseDate(flows[0].date);
-	const years = (date: string) =>
-		new D(basis.ticks(start, parseDate(date))).div(basis.ticksPerYear);
-	const total = years(flows[flows.length - 1].date);
+	const total = new D(basis.ticks(start, parseDate(flows[flows.length - 1].date))).div(
+		basis.ticksPerYear
+	);
 	if (total.lte(0)) return null;
-	let pv = new D(0);
-	let fv = new D(0);
-	for (const f of flows) {
-		const a = new D(f.amount);
-		if (a.isNeg()) pv = pv.plus(a.div(finance.plus(1).pow(years(f.date))));
-		else fv = fv.plus(a.times(reinvest.plus(1).pow(total.minus(years(f.date)))));
-	}
-	if (pv.isZero() || fv.isZero()) return null;
-	return fv.div(pv.neg()).pow(new D(1).div(total)).minus(1).toString();
+	const outflows = flows.filter((f) => f.amount.startsWith('-'));
+	const inflows = flows.filter((f) => !f.amount.startsWith('-') && !new D(f.amount).isZero());
+	if (!outflows.length || !inflows.length) return null;
+	// Anchor both sets at the first date so that time is measured from the same origin.
+	const anchor = { date: flows[0].date, amount: '0' };
+	const pv = evaluateDecimal(
+		datedSchedule([anchor, ...outflows], dayCount),
+		new Dec(finance)
+	).value;
+	const pvIn = evaluateDecimal(
+		datedSchedule([anchor, ...inflows], dayCount),
+		new Dec(reinvest)
+	).value;
+	const fv = new D(pvIn).times(reinvest.plus(1).pow(total));
+	return fv.div(new D(pv).neg()).pow(new D(1).div(total)).minus(1).toString();
 }
 
 export type DealAnalysis = ReturnType<typeof analyseDeal>;

@@ -208,8 +208,18 @@ export function datedDiscountedPayback(
 ): DatedPaybackResult {
 	const growth = ONE.plus(checkedRate(annualRate));
 	const days = dayOffsets(flows);
-	const values = flows.map((flow, i) =>
-		new Dec(flow.amount).div(growth.pow(new Dec(days[i]).div(365)))
-	);
+	// One fractional power (the daily factor), then integer powers cached per distinct day count:
+	// the same value as growth^(days/365) for each flow, without a fractional power per flow.
+	const daily = growth.ln().div(365).exp();
+	const factors = new Map<number, Dec>();
+	const values = flows.map((flow, i) => {
+		let factor = factors.get(days[i]);
+		if (!factor) {
+			// Whole years exactly; other spans through the daily factor.
+			factor = days[i] % 365 === 0 ? growth.pow(days[i] / 365) : daily.pow(days[i]);
+			factors.set(days[i], factor);
+		}
+		return new Dec(flow.amount).div(factor);
+	});
 	return dated(flows, days, values, 'cumulative discounted cash flow');
 }

@@ -4,6 +4,7 @@ import { appendixJSchedule } from '../solver/appendix-j';
 import { annexISchedule } from '../solver/annex-i';
 import { Dec } from '../solver/decimal';
 import { datedSchedule, equalPeriodSchedule, evaluateDecimal } from '../solver/npv';
+import { evaluateFloat } from '../solver/npv-float';
 import type { Schedule } from '../solver/schedule';
 
 function scheduleOf(request: SolveRequest): Schedule {
@@ -25,6 +26,8 @@ function scheduleOf(request: SolveRequest): Schedule {
  */
 export function npvProfile(request: SolveRequest, low: string, high: string, count = 81) {
 	const schedule = scheduleOf(request);
+	// A picture, not a decision: long schedules are plotted with the engine's float64 scan evaluator.
+	const precise = schedule.termCount <= 2000;
 	const a = new Decimal(low);
 	const step = new Decimal(high).minus(a).div(count - 1);
 	const points: { rate: number; npv: number }[] = [];
@@ -33,7 +36,9 @@ export function npvProfile(request: SolveRequest, low: string, high: string, cou
 		if (rate.lte(-1)) continue;
 		points.push({
 			rate: rate.toNumber(),
-			npv: evaluateDecimal(schedule, new Dec(rate)).value.toNumber()
+			npv: precise
+				? evaluateDecimal(schedule, new Dec(rate)).value.toNumber()
+				: evaluateFloat(schedule, Math.log1p(rate.toNumber())).value
 		});
 	}
 	return points;
