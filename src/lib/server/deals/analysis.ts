@@ -10,6 +10,7 @@ import { bisectionCount } from '../solver/decimal';
 import { datedNpv, datedSchedule, evaluateDecimal, npv } from '../solver/npv';
 import { mirr } from '../solver/mirr';
 import { npvProfile } from '../solves/profile';
+import { traceRunsPerRoot } from '../solves/trace';
 import {
 	datedDiscountedPayback,
 	datedSimplePayback,
@@ -172,7 +173,19 @@ export function analyseDeal(content: DealContent) {
 		new Dec(high.minus(low)),
 		new Dec(content.rateTolerance)
 	);
+	const traces = traceRunsPerRoot(request, result).map((runs) =>
+		runs.map((run) => ({
+			method: run.method,
+			bracket: run.bracket,
+			iterations: run.result.iterations,
+			predicted: run.result.predictedIterations,
+			bound: run.result.roots[0]?.iterationBound ?? null,
+			stoppedBy: run.result.stoppedBy,
+			steps: (run.result.trace ?? []).filter((s) => s.root === 0)
+		}))
+	);
 	return {
+		traces,
 		mode: flows.mode,
 		flowCount: flows.mode === 'dated' ? flows.dated.length : flows.periodic.length,
 		result,

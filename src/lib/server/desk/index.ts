@@ -1,8 +1,8 @@
-import { desc, eq } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import { db } from '../db';
-import { solves, users } from '../db/schema';
+import { deals, loans, solves, users } from '../db/schema';
 
-/** The workspace's latest solves, newest first, for the Desk. */
+/** The workspace's latest solves, newest first, with what they were for, for the Desk. */
 export async function recentSolves(workspaceId: string, limit = 12) {
 	return db
 		.select({
@@ -14,10 +14,14 @@ export async function recentSolves(workspaceId: string, limit = 12) {
 			status: solves.status,
 			rate: solves.rate,
 			createdAt: solves.createdAt,
-			by: users.name
+			by: users.name,
+			loanReference: loans.reference,
+			dealName: deals.name
 		})
 		.from(solves)
 		.leftJoin(users, eq(users.id, solves.createdBy))
+		.leftJoin(loans, and(eq(solves.subjectType, 'loan'), eq(loans.id, solves.subjectId)))
+		.leftJoin(deals, and(eq(solves.subjectType, 'deal'), eq(deals.id, solves.subjectId)))
 		.where(eq(solves.workspaceId, workspaceId))
 		.orderBy(desc(solves.createdAt))
 		.limit(limit);

@@ -40,3 +40,41 @@ export function traceRuns(request: SolveRequest, stored: SolveResult): TraceRun[
 		} as SolveRequest)
 	}));
 }
+
+/**
+ * Textbook runs for every root of a stored result: each root gets its own bracket, bounded by the
+ * midpoints to its neighbours (so each bracket holds exactly that root's sign change), refined by
+ * bisection and by ITP with the trace on.
+ */
+export function traceRunsPerRoot(
+	request: SolveRequest,
+	stored: SolveResult,
+	limit = 4
+): TraceRun[][] {
+	const rates = stored.roots.map((root) => new Decimal(root.ratePerPeriod ?? root.rate));
+	if (rates.length === 0) return [];
+	if (rates.length === 1) return [traceRuns(request, stored) ?? []];
+	return rates.slice(0, limit).map((rate, i) => {
+		const below = i > 0 ? rates[i - 1] : null;
+		const above = i < rates.length - 1 ? rates[i + 1] : null;
+		const low = below
+			? rate.plus(below).div(2)
+			: Decimal.max(rate.minus(above!.minus(rate).div(2)), new Decimal('-0.999'));
+		const high = above ? rate.plus(above).div(2) : rate.plus(rate.minus(below!).div(2));
+		const bracket = {
+			low: low.toSignificantDigits(12).toString(),
+			high: high.toSignificantDigits(12).toString()
+		};
+		return (['bisection', 'itp'] as const).map((method) => ({
+			method,
+			bracket,
+			result: solve({
+				...request,
+				method,
+				bracket,
+				trace: true,
+				stop: { rateTolerance: '1e-12' }
+			} as SolveRequest)
+		}));
+	});
+}
