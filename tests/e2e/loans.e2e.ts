@@ -169,6 +169,37 @@ describe('loan files', () => {
 		await context.close();
 	});
 
+	it('imports a schedule from a CSV file, and names the bad row of a broken one', async () => {
+		// 12 CFR 1026 Appendix J (b)(9) again, as a lender's file: the advance negative, payments positive.
+		const { context, page } = await signedIn(browser, demo('officer'));
+		const rows = appendixJExampleRows('2026-03-05')
+			.split('\n')
+			.map((line, i) =>
+				(i === 0 ? line.replace('\t1000.00', '\t-1000.00') : line).replace('\t', ',')
+			);
+		const importFile = async (reference: string, csv: string) => {
+			await page.goto(`${inject('baseURL')}/app/loans/new?mode=schedule`);
+			await page.getByText('Or import the schedule from a CSV or xlsx file').click();
+			const form = page.locator('form[action="?/file"]');
+			await form.getByLabel('Reference').fill(reference);
+			await form.getByLabel('Borrower').fill('Imported borrower');
+			await form
+				.locator('input[type=file]')
+				.setInputFiles({ name: 'schedule.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+			await form.getByRole('button', { name: 'Import and solve' }).click();
+		};
+		await importFile(`IMP-${tag()}`, ['Date,Amount', ...rows].join('\n'));
+		await page.waitForURL(/\/app\/loans\/[0-9a-f-]{36}$/);
+		await expect(new LoanPage(page).disclosedRate()).resolves.toBe('12.83%');
+
+		const [{ before }] = await sql`select count(*)::int as before from loans`;
+		await importFile(`IMPBAD-${tag()}`, 'Date,Amount\n2026-03-05,-1000\n2026-04-05,thirty\n');
+		await expect(page.getByTestId('file-problems').textContent()).resolves.toContain('Row 3');
+		const [{ after }] = await sql`select count(*)::int as after from loans`;
+		expect(after).toBe(before);
+		await context.close();
+	});
+
 	it('keeps versions: editing a disclosed loan creates version 2 and the history says what changed', async () => {
 		const { context, page } = await signedIn(browser, demo('officer'));
 		const form = new NewLoanPage(page);

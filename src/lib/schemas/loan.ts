@@ -216,3 +216,11 @@ export function parsePastedRows(
 	}
 	return { rows };
 }
+
+/** The header of a loan file imported from a spreadsheet. */
+export const loanHeaderSchema = z.object({
+	reference: z.string().trim().min(1, { error: 'Enter the loan reference.' }).max(60),
+	borrowerName: z.string().trim().min(1, { error: "Enter the borrower's name." }).max(120),
+	regime: z.enum(['us-apr', 'eu-aprc'], { error: 'Choose the regime.' }),
+	securedByRealProperty: z.preprocess((v) => v === 'on' || v === 'true' || v === true, z.boolean())
+});

@@ -25,9 +25,14 @@ export class NewLoanPage {
 		await this.page.goto(`${inject('baseURL')}/app/loans/new`);
 	}
 
+	/** The main form of the page (not the file import below it). */
+	form() {
+		return this.page.locator('form[action="?/terms"], form[action="?/entry"]');
+	}
+
 	async fillHeader(reference: string, borrower: string) {
-		await this.page.getByLabel('Reference').fill(reference);
-		await this.page.getByLabel('Borrower').fill(borrower);
+		await this.form().getByLabel('Reference').fill(reference);
+		await this.form().getByLabel('Borrower').fill(borrower);
 	}
 
 	async fillTerms(terms: Record<string, string>) {
