@@ -27,7 +27,7 @@ export class NewLoanPage {
 
 	/** The main form of the page (not the file import below it). */
 	form() {
-		return this.page.locator('form[action="?/terms"], form[action="?/entry"]');
+		return this.page.locator('form[action^="?/terms"], form[action^="?/entry"]');
 	}
 
 	async fillHeader(reference: string, borrower: string) {
