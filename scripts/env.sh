@@ -41,4 +41,12 @@ load_env() {
 	export PINCER_INBOX_URL="${PINCER_INBOX_URL:-http://127.0.0.1:$PINCER_INBOX_PORT}"
 	export SMTP_URL="${SMTP_URL:-smtp://127.0.0.1:$PINCER_SMTP_PORT}"
 	export MAIL_FROM="${MAIL_FROM:-Pincer <no-reply@pincer.localhost>}"
+	# Payments: the Stripe SDK talks to the local fake (fakes/stripe) unless these point at Stripe.
+	export PINCER_STRIPE_PORT="${PINCER_STRIPE_PORT:-12111}"
+	export PINCER_STRIPE_WEBHOOK_URL="${PINCER_STRIPE_WEBHOOK_URL:-http://127.0.0.1:$PORT/api/v1/webhooks/stripe}"
+	export STRIPE_SECRET_KEY="${STRIPE_SECRET_KEY:-sk_test_pincer_local}"
+	export STRIPE_API_HOST="${STRIPE_API_HOST:-127.0.0.1}"
+	export STRIPE_API_PORT="${STRIPE_API_PORT:-$PINCER_STRIPE_PORT}"
+	export STRIPE_API_PROTOCOL="${STRIPE_API_PROTOCOL:-http}"
+	export STRIPE_PRICE_ID="${STRIPE_PRICE_ID:-price_pincer_seat_monthly}"
 }

@@ -7,7 +7,10 @@ export type NavItem = {
 		| '/app/deals'
 		| '/app/audit'
 		| '/app/settings/team'
-		| '/app/settings/account';
+		| '/app/settings/billing'
+		| '/app/settings/api-keys'
+		| '/app/settings/account'
+		| '/app/api';
 	label: string;
 	roles: Role[];
 };
@@ -20,7 +23,10 @@ export const navItems: NavItem[] = [
 	{ href: '/app/deals', label: 'Deals', roles: everyone },
 	{ href: '/app/audit', label: 'Audit trail', roles: ['admin', 'reviewer'] },
 	{ href: '/app/settings/team', label: 'Team', roles: ['admin'] },
-	{ href: '/app/settings/account', label: 'Account', roles: everyone }
+	{ href: '/app/settings/billing', label: 'Billing and seats', roles: ['admin'] },
+	{ href: '/app/settings/api-keys', label: 'API keys', roles: ['admin'] },
+	{ href: '/app/settings/account', label: 'Account', roles: everyone },
+	{ href: '/app/api', label: 'API reference', roles: everyone }
 ];
 
 export const roleNames: Record<Role, string> = {

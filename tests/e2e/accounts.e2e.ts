@@ -137,7 +137,9 @@ describe('accounts, roles and workspaces', () => {
 		await expect(page.getByLabel('Work e-mail').inputValue()).resolves.toBe(founder);
 		await page.getByLabel('Password').fill('a-sound-password-2026');
 		await page.getByRole('button', { name: 'Create the workspace' }).click();
-		await page.waitForURL('**/app?welcome=1');
+		// Sign-up goes on to checkout (the local Stripe fake); the workspace is on its trial meanwhile.
+		await page.waitForURL(`${inject('stripeURL')}/pay/**`);
+		await page.goto(`${inject('baseURL')}/app`);
 		await expect(page.getByTestId('role-badge').textContent()).resolves.toBe('admin');
 
 		await page.goto(`${inject('baseURL')}/app/settings/team`);

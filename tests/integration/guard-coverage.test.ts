@@ -17,7 +17,11 @@ const PUBLIC: Record<string, string> = {
 	'src/routes/(auth)/reset/[token]/+page.server.ts': 'the reset token is the authority',
 	'src/routes/(auth)/invite/[token]/+page.server.ts':
 		'the invitation token is the authority (accept uses requireUser)',
-	'src/routes/(auth)/signout/+page.server.ts': 'signing out needs no role'
+	'src/routes/(auth)/signout/+page.server.ts': 'signing out needs no role',
+	'src/routes/api/v1/webhooks/stripe/+server.ts':
+		'Stripe calls it; the signature over the raw body is the authority',
+	'src/routes/api/v1/openapi.json/+server.ts': 'the API description; no workspace data',
+	'src/routes/api/v1/[...unknown]/+server.ts': 'JSON 404 for paths the API lacks; reads nothing'
 };
 
 const HANDLERS = new Set([

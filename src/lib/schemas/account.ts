@@ -1,5 +1,6 @@
 // Forms of accounts, workspaces and members. Shared by form actions and the API reference.
 import { z } from 'zod';
+import { seatCount } from './billing';
 
 export const email = z
 	.string({ error: 'Enter your e-mail address.' })
@@ -37,7 +38,8 @@ export const signUpSchema = z.object({
 		.trim()
 		.min(2, { error: 'Name your workspace (at least 2 characters).' })
 		.max(120, { error: 'Use at most 120 characters.' }),
-	password: newPassword
+	password: newPassword,
+	seats: seatCount.default(3)
 });
 
 export const forgotSchema = z.object({ email });

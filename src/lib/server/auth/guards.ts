@@ -4,6 +4,7 @@ import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { asc, eq } from 'drizzle-orm';
 import { db } from '../db';
 import { memberships, users, workspaces, type Role } from '../db/schema';
+import { readOnlyMessage, readOnlyReason } from '../billing/status';
 
 export const WORKSPACE_COOKIE = 'pincer_workspace';
 
@@ -14,6 +15,9 @@ export type WorkspaceMembership = {
 	name: string;
 	slug: string;
 	seats: number;
+	/** Stripe's subscription status, or `trialing` for our own trial (see billing/status.ts). */
+	subscriptionStatus: string;
+	trialEndsAt: Date | null;
 	role: Role;
 };
 export type Actor = {
@@ -40,6 +44,8 @@ async function loadActor(event: RequestEvent): Promise<Actor | null> {
 			name: workspaces.name,
 			slug: workspaces.slug,
 			seats: workspaces.seats,
+			subscriptionStatus: workspaces.subscriptionStatus,
+			trialEndsAt: workspaces.trialEndsAt,
 			role: memberships.role
 		})
 		.from(memberships)
@@ -74,6 +80,20 @@ export async function requireUser(event: RequestEvent): Promise<Actor> {
 
 export type WorkspaceActor = Actor & { workspace: WorkspaceMembership; role: Role };
 
+const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
+/** Writes an unpaid, read-only workspace still allows: paying, and checking the audit chain. */
+const UNPAID_MAY = ['/(app)/app/settings/billing', '/(app)/app/audit?/check'];
+
+/** Refuses a write (any non-GET) in a workspace whose subscription ended, with the reason. */
+export function assertWritable(event: RequestEvent, workspace: WorkspaceMembership): void {
+	if (READS.has(event.request.method)) return;
+	const reason = readOnlyReason(workspace);
+	if (!reason) return;
+	const at = `${event.route.id}${event.url.search.startsWith('?/') ? event.url.search : ''}`;
+	if (UNPAID_MAY.some((allowed) => at.startsWith(allowed))) return;
+	error(403, readOnlyMessage(workspace, reason));
+}
+
 /** A member of the active workspace whose role is one of `roles` (any role when none given). */
 export async function requireRole(event: RequestEvent, ...roles: Role[]): Promise<WorkspaceActor> {
 	const actor = await requireUser(event);
@@ -82,6 +102,7 @@ export async function requireRole(event: RequestEvent, ...roles: Role[]): Promis
 	if (roles.length && !roles.includes(role)) {
 		error(403, `Your role in ${actor.workspace.name} (${role}) cannot do this.`);
 	}
+	assertWritable(event, actor.workspace);
 	return { ...actor, workspace: actor.workspace, role };
 }
 

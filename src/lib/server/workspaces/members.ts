@@ -48,7 +48,7 @@ export async function listPendingInvitations(workspaceId: string) {
 }
 
 /** Members plus open invitations, with the workspace row locked so concurrent changes queue. */
-async function seatUse(tx: Executor, workspaceId: string) {
+export async function seatUse(tx: Executor, workspaceId: string) {
 	const [workspace] = await tx
 		.select({ seats: workspaces.seats, name: workspaces.name })
 		.from(workspaces)

@@ -1,4 +1,5 @@
 import { requireUser } from '$lib/server/auth';
+import { readOnlyMessage, readOnlyReason } from '$lib/server/billing';
 import type { LayoutServerLoad } from './$types';
 
 export const load: LayoutServerLoad = async (event) => {
@@ -9,7 +10,14 @@ export const load: LayoutServerLoad = async (event) => {
 		workspace: actor.workspace && {
 			id: actor.workspace.id,
 			name: actor.workspace.name,
-			role: actor.workspace.role
-		}
+			role: actor.workspace.role,
+			subscriptionStatus: actor.workspace.subscriptionStatus
+		},
+		readOnly: readOnlyNotice(actor.workspace)
 	};
 };
+
+function readOnlyNotice(workspace: Parameters<typeof readOnlyReason>[0] | null) {
+	const reason = workspace && readOnlyReason(workspace);
+	return reason && workspace ? readOnlyMessage(workspace, reason) : null;
+}

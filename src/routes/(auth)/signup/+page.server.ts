@@ -3,6 +3,8 @@ import { setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { signUpSchema } from '$lib/schemas/account';
 import { getActor, startPasswordSession } from '$lib/server/auth';
+import { billingPath, startCheckout } from '$lib/server/billing';
+import { toCheckout } from '$lib/server/billing/leave';
 import { signUp } from '$lib/server/workspaces/accounts';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -21,6 +23,16 @@ export const actions: Actions = {
 		const created = await signUp({ ...form.data, password });
 		if (!created.ok) return setError(form, created.field, created.message);
 		await startPasswordSession(event, form.data.email, password);
-		redirect(303, '/app?welcome=1');
+		// The new workspace runs on its trial until Stripe confirms the payment started here.
+		const checkout = await startCheckout(
+			{ workspaceId: created.workspaceId, actorId: created.userId, email: form.data.email },
+			form.data.seats,
+			event.url.origin
+		);
+		if (!checkout.ok) {
+			console.error(`[pincer] request ${event.locals.requestId}: ${checkout.message}`);
+			redirect(303, `${billingPath}?checkout=unavailable`);
+		}
+		toCheckout(event, checkout);
 	}
 };
