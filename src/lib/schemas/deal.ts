@@ -67,6 +67,14 @@ export const dealContentSchema = z
 		combine: z.enum(['any', 'all']).default('any'),
 		profileLow: percent('The chart’s lowest rate').default('-50'),
 		profileHigh: percent('The chart’s highest rate').default('100'),
+		scanLow: percent('The lowest rate to search')
+			.or(z.literal(''))
+			.default('')
+			.describe('Search for rates only from here (% per year); empty: the whole admissible range'),
+		scanHigh: percent('The highest rate to search')
+			.or(z.literal(''))
+			.default('')
+			.describe('Search for rates only up to here (% per year)'),
 		flows: z.array(dealFlowSchema).max(100_000)
 	})
 	.superRefine((deal, ctx) => {
@@ -100,6 +108,22 @@ export const dealContentSchema = z
 				});
 			}
 		});
+		if ((deal.scanLow === '') !== (deal.scanHigh === '')) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['scanHigh'],
+				message: 'Give both ends of the search range, or neither.'
+			});
+		} else if (
+			deal.scanLow !== '' &&
+			(Number(deal.scanLow) >= Number(deal.scanHigh) || Number(deal.scanLow) <= -100)
+		) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['scanHigh'],
+				message: 'The search range must run from above −100% to a higher rate.'
+			});
+		}
 		if (Number(deal.profileLow) >= Number(deal.profileHigh)) {
 			ctx.addIssue({
 				code: 'custom',

@@ -46,6 +46,16 @@ const perPeriod = (annual: Decimal, m: number) => annual.plus(1).pow(new D(1).di
 
 export function solveRequestFor(content: DealContent): SolveRequest {
 	const flows = investorFlows(content);
+	// An optional search range, typed in % per year: the engine then works inside that bracket only.
+	const bracket =
+		content.scanLow !== '' && content.scanHigh !== ''
+			? flows.mode === 'dated'
+				? { low: fraction(content.scanLow).toString(), high: fraction(content.scanHigh).toString() }
+				: {
+						low: perPeriod(fraction(content.scanLow), content.periodsPerYear).toString(),
+						high: perPeriod(fraction(content.scanHigh), content.periodsPerYear).toString()
+					}
+			: undefined;
 	const stop = {
 		rateTolerance: content.rateTolerance,
 		maxIterations: content.maxIterations,
@@ -58,6 +68,7 @@ export function solveRequestFor(content: DealContent): SolveRequest {
 				flows: flows.dated,
 				dayCount: content.dayCount,
 				method: content.method,
+				...(bracket ? { bracket } : {}),
 				stop,
 				trace: true
 			}
@@ -66,6 +77,7 @@ export function solveRequestFor(content: DealContent): SolveRequest {
 				flows: flows.periodic,
 				periodsPerYear: content.periodsPerYear,
 				method: content.method,
+				...(bracket ? { bracket } : {}),
 				stop,
 				trace: true
 			};
