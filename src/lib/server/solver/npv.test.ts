@@ -84,12 +84,12 @@ describe('decimal NPV', () => {
 			{ date: '2024-03-15', amount: '250' },
 			{ date: '2025-06-30', amount: '900' }
 		];
-		const xnpv = formulajs.XNPV(
+		const datedReference = formulajs.XNPV(
 			0.09,
 			dated.map((f) => Number(f.amount)),
 			dated.map((f) => new Date(`${f.date}T00:00:00Z`))
 		) as number;
-		expect(Number(datedNpv(dated, '0.09'))).toBeCloseTo(xnpv, 9);
+		expect(Number(datedNpv(dated, '0.09'))).toBeCloseTo(datedReference, 9);
 	});
 
 	it('rejects rates at or below −100%', () => {
