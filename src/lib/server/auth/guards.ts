@@ -81,8 +81,13 @@ export async function requireUser(event: RequestEvent): Promise<Actor> {
 export type WorkspaceActor = Actor & { workspace: WorkspaceMembership; role: Role };
 
 const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
-/** Writes an unpaid, read-only workspace still allows: paying, and checking the audit chain. */
-const UNPAID_MAY = ['/(app)/app/settings/billing', '/(app)/app/audit?/check'];
+/** Non-GET requests an unpaid, read-only workspace still allows: paying, checking the audit chain, previews. */
+const UNPAID_MAY = [
+	'/(app)/app/settings/billing',
+	'/(app)/app/audit?/check',
+	// A live preview computes and stores nothing.
+	'/(app)/app/deals/[dealId=uuid]/analyse'
+];
 
 /** Refuses a write (any non-GET) in a workspace whose subscription ended, with the reason. */
 export function assertWritable(event: RequestEvent, workspace: WorkspaceMembership): void {
