@@ -119,7 +119,8 @@ function datedMirr(
 
 export type DealAnalysis = ReturnType<typeof analyseDeal>;
 
-export function analyseDeal(content: DealContent) {
+/** `traces: false` skips the per-root textbook runs (the page asks for them separately on long schedules). */
+export function analyseDeal(content: DealContent, options: { traces?: boolean } = {}) {
 	const flows = investorFlows(content);
 	const request = solveRequestFor(content);
 	const result: SolveResult = solve(request);
@@ -185,7 +186,7 @@ export function analyseDeal(content: DealContent) {
 		new Dec(high.minus(low)),
 		new Dec(content.rateTolerance)
 	);
-	const traces = traceRunsPerRoot(request, result).map((runs) =>
+	const traces = (options.traces === false ? [] : traceRunsPerRoot(request, result)).map((runs) =>
 		runs.map((run) => ({
 			method: run.method,
 			bracket: run.bracket,
@@ -198,6 +199,7 @@ export function analyseDeal(content: DealContent) {
 	);
 	return {
 		traces,
+		tracesSkipped: options.traces === false && result.roots.length > 0,
 		mode: flows.mode,
 		flowCount: flows.mode === 'dated' ? flows.dated.length : flows.periodic.length,
 		result,

@@ -34,7 +34,8 @@ export const load: PageServerLoad = async (event) => {
 		},
 		version: found.version,
 		content: found.content,
-		analysis: analyseDeal(found.content),
+		// Long schedules load faster without the textbook traces; the page fetches them on request.
+		analysis: analyseDeal(found.content, { traces: found.content.flows.length <= 2000 }),
 		versions,
 		files,
 		scenarios,
