@@ -6,6 +6,7 @@ import { drizzle } from 'drizzle-orm/postgres-js';
 import postgres from 'postgres';
 import { appendAuditEvent } from '../src/lib/server/audit/chain.ts';
 import * as schema from '../src/lib/server/db/schema/index.ts';
+import type { Role } from '../src/lib/server/db/schema/workspaces.ts';
 import { DEMO_PASSWORD, DEMO_USERS, DEMO_WORKSPACE } from './demo/accounts.ts';
 import { DEMO_DEALS } from './demo/deals.ts';
 import { DEMO_LOANS } from './demo/loans.ts';
@@ -69,26 +70,34 @@ try {
 	await sqlClient.end();
 }
 
-/** The demo loan files, through the same service the screens use (solved and audited). */
-async function seedLoans() {
+/**
+ * Who seeds a part of the demo: the demo workspace and the demo user of `role`, or null when the
+ * workspace is missing or already holds rows of `table` (each part is seeded once, never twice).
+ */
+async function actingFor(role: Role, table: typeof schema.loans | typeof schema.deals) {
 	const [workspace] = await db
 		.select({ id: schema.workspaces.id })
 		.from(schema.workspaces)
 		.where(eq(schema.workspaces.slug, DEMO_WORKSPACE.slug));
-	if (!workspace) return;
+	if (!workspace) return null;
 	const [{ n }] = await db
 		.select({ n: count() })
-		.from(schema.loans)
-		.where(eq(schema.loans.workspaceId, workspace.id));
-	if (n > 0) return;
-	const [officer] = await db
+		.from(table)
+		.where(eq(table.workspaceId, workspace.id));
+	if (n > 0) return null;
+	const [user] = await db
 		.select({ id: schema.users.id })
 		.from(schema.users)
-		.where(eq(schema.users.email, DEMO_USERS.find((u) => u.role === 'officer')!.email));
-	if (!officer) return;
+		.where(eq(schema.users.email, DEMO_USERS.find((u) => u.role === role)!.email));
+	return user ? { workspaceId: workspace.id, actorId: user.id } : null;
+}
+
+/** The demo loan files, through the same service the screens use (solved and audited). */
+async function seedLoans() {
+	const acting = await actingFor('officer', schema.loans);
+	if (!acting) return;
 	const { createLoan, markDisclosed } = await import('$lib/server/loans');
 	const { runToleranceCheck } = await import('$lib/server/loans/checks');
-	const acting = { workspaceId: workspace.id, actorId: officer.id };
 	for (const demo of DEMO_LOANS) {
 		const saved = await createLoan(acting, demo.file);
 		if (!saved.ok) throw new Error(`demo loan: ${saved.message}`);
@@ -100,24 +109,10 @@ async function seedLoans() {
 
 /** The demo deals (one with two rates, one with a scenario), through the deals service. */
 async function seedDeals() {
-	const [workspace] = await db
-		.select({ id: schema.workspaces.id })
-		.from(schema.workspaces)
-		.where(eq(schema.workspaces.slug, DEMO_WORKSPACE.slug));
-	if (!workspace) return;
-	const [{ n }] = await db
-		.select({ n: count() })
-		.from(schema.deals)
-		.where(eq(schema.deals.workspaceId, workspace.id));
-	if (n > 0) return;
-	const [analyst] = await db
-		.select({ id: schema.users.id })
-		.from(schema.users)
-		.where(eq(schema.users.email, DEMO_USERS.find((u) => u.role === 'analyst')!.email));
-	if (!analyst) return;
+	const acting = await actingFor('analyst', schema.deals);
+	if (!acting) return;
 	const { createDeal, createScenario, updateDeal } = await import('$lib/server/deals');
 	const { dealContentSchema } = await import('$lib/schemas/deal');
-	const acting = { workspaceId: workspace.id, actorId: analyst.id };
 	for (const demo of DEMO_DEALS) {
 		const content = dealContentSchema.parse(demo.content);
 		const created = await createDeal(acting, demo.name, content);
