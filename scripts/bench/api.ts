@@ -11,11 +11,12 @@
  *     the one `npm start` serves); the run adds a "Bench workspace" with its solves and audit
  *     events to it, which stay (the audit trail is append-only).
  * The server runs with PINCER_API_RATE_LIMIT raised so the per-key limit does not cap the run.
- * Knobs: PINCER_BENCH_SECONDS (10), PINCER_BENCH_CONNECTIONS (32).
+ * Knobs: PINCER_BENCH_SECONDS (10), PINCER_BENCH_CONNECTIONS (32), PINCER_BENCH_NODE_ARGS (extra
+ * node options for the server, e.g. `--cpu-prof --cpu-prof-dir=/tmp/prof` to profile it).
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
-import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { chmodSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -93,7 +94,8 @@ async function benchKey(sql: postgres.Sql) {
 async function startServer(databaseUrl: string) {
 	const port = await freePort();
 	const baseURL = `http://127.0.0.1:${port}`;
-	const child = spawn(process.execPath, ['build'], {
+	const nodeArgs = (process.env.PINCER_BENCH_NODE_ARGS ?? '').split(' ').filter(Boolean);
+	const child = spawn(process.execPath, [...nodeArgs, 'build'], {
 		cwd: root,
 		env: {
 			...process.env,
@@ -130,14 +132,50 @@ async function startServer(databaseUrl: string) {
 	return { baseURL, stop, pid: child.pid };
 }
 
-/** CPU time (user + system, ms) a process has used so far, from /proc; null where unreadable. */
-function cpuMs(pid: number | undefined): number | null {
-	try {
-		const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
-		return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
-	} catch {
-		return null;
+type ProcStat = { pid: number; ppid: number; comm: string; cpu: number };
+
+/** Every process's parent, name and CPU time (user + system, ms) so far, from /proc. */
+function processes(): ProcStat[] {
+	const list: ProcStat[] = [];
+	for (const name of readdirSync('/proc')) {
+		if (!/^\d+$/.test(name)) continue;
+		try {
+			const stat = readFileSync(`/proc/${name}/stat`, 'utf8');
+			const fields = stat.slice(stat.lastIndexOf(') ') + 2).split(' ');
+			list.push({
+				pid: Number(name),
+				ppid: Number(fields[1]),
+				comm: stat.slice(stat.indexOf('(') + 1, stat.lastIndexOf(')')),
+				cpu: ((Number(fields[11]) + Number(fields[12])) * 1000) / 100
+			});
+		} catch {
+			// The process ended while we looked.
+		}
 	}
+	return list;
+}
+
+/** CPU used so far (ms) by the server with its worker processes, and by PostgreSQL. */
+function cpuSnapshot(serverPid: number | undefined) {
+	const list = processes();
+	const family = new Set([serverPid]);
+	for (let grown = true; grown;) {
+		grown = false;
+		for (const p of list) {
+			if (!family.has(p.pid) && family.has(p.ppid)) {
+				family.add(p.pid);
+				grown = true;
+			}
+		}
+	}
+	const sum = (keep: (p: ProcStat) => boolean) =>
+		list.filter(keep).reduce((total, p) => total + p.cpu, 0);
+	const self = process.cpuUsage();
+	return {
+		server: sum((p) => family.has(p.pid)),
+		postgres: sum((p) => p.comm === 'postgres'),
+		load: (self.user + self.system) / 1000
+	};
 }
 
 const ms = (value: number) => `${value.toFixed(1)} ms`;
@@ -190,9 +228,9 @@ async function main() {
 		const [{ before }] = await sql`
 			select count(*)::int as before from audit_events
 			where workspace_id = ${bench.workspaceId} and action = 'solve.run'`;
-		const cpuBefore = cpuMs(server.pid);
+		const cpuBefore = cpuSnapshot(server.pid);
 		const solved = await runLoad(solve, CONNECTIONS, SECONDS);
-		const cpuAfter = cpuMs(server.pid);
+		const cpuAfter = cpuSnapshot(server.pid);
 		const [{ after }] = await sql`
 			select count(*)::int as after from audit_events
 			where workspace_id = ${bench.workspaceId} and action = 'solve.run'`;
@@ -213,13 +251,12 @@ async function main() {
 				`solve.run audit events written during the run: ${after - before} ` +
 				`(2xx answers: ${solved.requests - solved.failures})`
 		);
-		if (cpuBefore !== null && cpuAfter !== null) {
-			const perSolve = (cpuAfter - cpuBefore) / solved.requests;
-			console.log(
-				`server process CPU per POST /solve: ${perSolve.toFixed(1)} ms ` +
-					`(one Node process tops out near ${(1000 / perSolve).toFixed(0)} req/s)`
-			);
-		}
+		const per = (part: keyof typeof cpuAfter) =>
+			`${((cpuAfter[part] - cpuBefore[part]) / solved.requests).toFixed(2)} ms`;
+		console.log(
+			`CPU per POST /solve: server ${per('server')}, PostgreSQL ${per('postgres')}` +
+				`${given ? ' (every postgres process on the machine)' : ''}, load generator ${per('load')}`
+		);
 		console.log(
 			`target ≥ ${TARGET.perSecond} req/s and p99 < ${TARGET.p99} ms: ${meets ? 'met' : 'NOT met'} ` +
 				`(${solved.perSecond.toFixed(0)} req/s, p99 ${ms(solved.p99)})`

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isRealDate, readIsoDate } from '$lib/calendar';
 
 /*
  * The rate-solving request, shared by forms, the API and the solver. Amounts and rates are
@@ -8,7 +9,6 @@ import { z } from 'zod';
 
 const AMOUNT_PATTERN = /^[+-]?\d{1,24}(\.\d{1,12})?$/;
 const RATE_PATTERN = /^[+-]?(\d{1,12}(\.\d{1,40})?|\.\d{1,40})([eE][+-]?\d{1,3})?$/;
-const DATE_PATTERN = /^\d{4}-\d{2}-\d{2}$/;
 
 export const MAX_FLOWS = 20_000;
 
@@ -30,16 +30,8 @@ export function compareDecimalStrings(a: string, b: string): number {
 }
 
 function isCalendarDate(text: string): boolean {
-	if (!DATE_PATTERN.test(text)) return false;
-	const [year, month, day] = text.split('-').map(Number);
-	const date = new Date(Date.UTC(year, month - 1, day));
-	return (
-		year >= 1900 &&
-		year <= 2200 &&
-		date.getUTCFullYear() === year &&
-		date.getUTCMonth() === month - 1 &&
-		date.getUTCDate() === day
-	);
+	const date = readIsoDate(text);
+	return date !== null && date.year >= 1900 && date.year <= 2200 && isRealDate(date);
 }
 
 const amount = (what: string) =>

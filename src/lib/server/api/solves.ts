@@ -2,16 +2,24 @@
 // key that asked as the solve's subject; GET /solves/{id} reads any solve of the workspace.
 import type { SolveRequest } from '$lib/schemas/solve';
 import type { ApiCaller } from '../auth/api-keys';
-import { db } from '../db';
-import { getSolve, solveAndRecord } from '../solves';
+import { getSolve } from '../solves';
+import { storeSolve } from '../solves/group-commit';
+import { solve } from '../solver';
 import { notFound } from './input';
 import { presentSolve } from './present';
 
-/** Runs, stores and audits (solve.run) one solve in one transaction; the result with its id. */
+/**
+ * Runs the engine, then stores the solve with its solve.run event (committed together, in a
+ * group commit with the workspace's other calls of the moment); the result with its id.
+ */
 export async function solveForCaller(caller: ApiCaller, request: SolveRequest) {
-	const { id, result } = await db.transaction((tx) =>
-		solveAndRecord(tx, caller, { type: 'api', id: caller.keyId }, request)
-	);
+	const result = solve(request);
+	const id = await storeSolve({
+		acting: caller,
+		subject: { type: 'api', id: caller.keyId },
+		request,
+		result
+	});
 	return { id, ...result };
 }
 

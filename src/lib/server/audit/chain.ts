@@ -51,29 +51,54 @@ export async function appendAuditEvent(
 	tx: Executor,
 	input: AuditInput
 ): Promise<{ id: number; hash: string }> {
-	const key = `pincer.audit:${input.workspaceId ?? 'global'}`;
+	const [appended] = await appendAuditEvents(tx, input.workspaceId, [input]);
+	return appended;
+}
+
+/**
+ * Appends events of one chain, in the order given, under one hold of the chain's lock (one
+ * multi-row insert: identity values follow the VALUES order, so ids follow the chain). Call
+ * inside the transaction of the changes they record.
+ */
+export async function appendAuditEvents(
+	tx: Executor,
+	workspaceId: string | null,
+	inputs: AuditInput[]
+): Promise<{ id: number; hash: string }[]> {
+	if (inputs.some((input) => input.workspaceId !== workspaceId)) {
+		throw new Error('appendAuditEvents: every event must belong to the chain it is appended to');
+	}
+	if (inputs.length === 0) return [];
+	const key = `pincer.audit:${workspaceId ?? 'global'}`;
 	await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${key}, 0))`);
 	const [last] = await tx
 		.select({ hash: auditEvents.hash })
 		.from(auditEvents)
-		.where(chainOf(input.workspaceId))
+		.where(chainOf(workspaceId))
 		.orderBy(desc(auditEvents.id))
 		.limit(1);
-	const content: ChainedContent = {
-		workspaceId: input.workspaceId,
-		actorId: input.actorId,
-		action: input.action,
-		subject: input.subject ?? null,
-		payload: input.payload ?? {},
-		createdAt: new Date()
-	};
-	const prevHash = last?.hash ?? '';
-	const hash = eventHash(prevHash, content);
-	const [row] = await tx
+	const createdAt = new Date();
+	let prevHash = last?.hash ?? '';
+	const rows = inputs.map((input) => {
+		const content: ChainedContent = {
+			workspaceId,
+			actorId: input.actorId,
+			action: input.action,
+			subject: input.subject ?? null,
+			payload: input.payload ?? {},
+			createdAt
+		};
+		const row = { ...content, prevHash, hash: eventHash(prevHash, content) };
+		prevHash = row.hash;
+		return row;
+	});
+	const inserted = await tx
 		.insert(auditEvents)
-		.values({ ...content, prevHash, hash })
-		.returning({ id: auditEvents.id });
-	return { id: row.id, hash };
+		.values(rows)
+		.returning({ id: auditEvents.id, hash: auditEvents.hash });
+	// RETURNING's order is not promised; the hash (unique within a chain) pairs rows back.
+	const idOf = new Map(inserted.map((row) => [row.hash, row.id]));
+	return rows.map((row) => ({ id: idOf.get(row.hash)!, hash: row.hash }));
 }
 
 export type ChainCheck =

@@ -85,4 +85,8 @@ export function authConfig(): SvelteKitAuthConfig {
 	};
 }
 
-export const { handle: authHandle } = SvelteKitAuth(async () => authConfig());
+// Built on the first request (when $env/dynamic is readable), then reused: building it per
+// request re-created the Drizzle adapter's table definitions each time, a measurable share of
+// every API call's CPU.
+let config: SvelteKitAuthConfig | undefined;
+export const { handle: authHandle } = SvelteKitAuth(async () => (config ??= authConfig()));

@@ -1,26 +1,17 @@
 /** Calendar arithmetic on `YYYY-MM-DD` dates, in whole days (no time zones involved). */
 
-export interface CalendarDate {
-	year: number;
-	month: number; // 1..12
-	day: number; // 1..31
-}
+import { daysInMonth, isLeapYear, readIsoDate, type CalendarDate } from '../../calendar';
+
+export { daysInMonth, isLeapYear, type CalendarDate };
 
 const MS_PER_DAY = 86_400_000;
 
+/** Year, month and day of a `YYYY-MM-DD` date (the request schema has checked the form). */
 export function parseDate(text: string): CalendarDate {
+	const read = readIsoDate(text);
+	if (read) return read;
 	const [year, month, day] = text.split('-').map(Number);
 	return { year, month, day };
-}
-
-export function isLeapYear(year: number): boolean {
-	return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
-}
-
-const MONTH_LENGTHS = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
-
-export function daysInMonth(year: number, month: number): number {
-	return month === 2 && isLeapYear(year) ? 29 : MONTH_LENGTHS[month - 1];
 }
 
 export function isMonthEnd(date: CalendarDate): boolean {

@@ -1,6 +1,7 @@
+import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { SolveRequest, SolveResult } from '$lib/schemas/solve';
-import { appendAuditEvent } from '../audit/chain';
+import { appendAuditEvents } from '../audit/chain';
 import { db } from '../db';
 import { solves } from '../db/schema';
 import type { Executor } from '../db/types';
@@ -10,19 +11,47 @@ import { appVersion } from '../version';
 /** Stored with every solve so that an examiner can tell which engine produced a result. */
 export const ENGINE_VERSION = `pincer ${appVersion} (decimal.js 10.6.0, 40 digits)`;
 
-type Subject = { type: 'loan' | 'deal' | 'api'; id?: string | null; version?: number | null };
+export type Subject = {
+	type: 'loan' | 'deal' | 'api';
+	id?: string | null;
+	version?: number | null;
+};
+export type Acting = { workspaceId: string; actorId: string | null };
+
+/** One engine run to store: who asked, what for, the request and the engine's result. */
+export type SolveRecord = {
+	acting: Acting;
+	subject: Subject;
+	request: SolveRequest;
+	result: SolveResult;
+};
 
 /** Runs the engine and stores request, result, engine version, who and when, audited, in `tx`. */
 export async function solveAndRecord(
 	tx: Executor,
-	acting: { workspaceId: string; actorId: string | null },
+	acting: Acting,
 	subject: Subject,
 	request: SolveRequest
 ): Promise<{ id: string; result: SolveResult }> {
 	const result = solve(request);
-	const [row] = await tx
-		.insert(solves)
-		.values({
+	const [id] = await recordSolves(tx, acting.workspaceId, [{ acting, subject, request, result }]);
+	return { id, result };
+}
+
+/**
+ * Stores solves of one workspace in `tx`, each with its solve.run event in the workspace's audit
+ * chain (in the order given); their ids in the same order.
+ */
+export async function recordSolves(
+	tx: Executor,
+	workspaceId: string,
+	records: SolveRecord[]
+): Promise<string[]> {
+	if (records.length === 0) return [];
+	const ids = records.map(() => randomUUID());
+	await tx.insert(solves).values(
+		records.map(({ acting, subject, request, result }, i) => ({
+			id: ids[i],
 			workspaceId: acting.workspaceId,
 			subjectType: subject.type,
 			subjectId: subject.id ?? null,
@@ -34,23 +63,27 @@ export async function solveAndRecord(
 			result: result as unknown as Record<string, unknown>,
 			engineVersion: ENGINE_VERSION,
 			createdBy: acting.actorId
-		})
-		.returning({ id: solves.id });
-	await appendAuditEvent(tx, {
-		workspaceId: acting.workspaceId,
-		actorId: acting.actorId,
-		action: 'solve.run',
-		subject: `solve:${row.id}`,
-		payload: {
-			for: subject.id ? `${subject.type}:${subject.id}` : subject.type,
-			version: subject.version ?? null,
-			kind: request.kind,
-			status: result.status,
-			rate: result.rate,
-			roots: result.roots.length
-		}
-	});
-	return { id: row.id, result };
+		}))
+	);
+	await appendAuditEvents(
+		tx,
+		workspaceId,
+		records.map(({ acting, subject, request, result }, i) => ({
+			workspaceId: acting.workspaceId,
+			actorId: acting.actorId,
+			action: 'solve.run',
+			subject: `solve:${ids[i]}`,
+			payload: {
+				for: subject.id ? `${subject.type}:${subject.id}` : subject.type,
+				version: subject.version ?? null,
+				kind: request.kind,
+				status: result.status,
+				rate: result.rate,
+				roots: result.roots.length
+			}
+		}))
+	);
+	return ids;
 }
 
 /** A stored solve of this workspace, or null (another workspace's solve is not found). */
