@@ -45,7 +45,8 @@ if [ ! -f "$stamp" ] || [ -n "$(find src static drizzle package-lock.json svelte
 	touch "$stamp"
 fi
 
-node build &
+# One server process per core (PINCER_WORKERS to choose): see scripts/serve.js.
+node scripts/serve.js &
 SERVER_PID=$!
 for _ in $(seq 1 100); do
 	curl -fsS "http://$HOST:$PORT/healthz" >/dev/null 2>&1 && break

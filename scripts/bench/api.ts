@@ -1,8 +1,10 @@
 /**
  * `npm run bench:api`: throughput and latency of POST /api/v1/solve for a 360-payment loan on the
- * built server (`node build`), 32 keep-alive connections for 10 s from this second process,
- * against the issue's target (≥ 300 requests/s, p99 < 100 ms, audit write included), and as a
- * ratio to GET /healthz measured in the same run. A benchmark reports figures; it asserts nothing.
+ * built server as `npm start` serves it (scripts/serve.js, one process per core unless
+ * PINCER_WORKERS says otherwise), 32 keep-alive connections for 10 s from wrk in a second process
+ * (Debian's package, installed when missing), against the issue's target (≥ 300 requests/s,
+ * p99 < 100 ms, audit write included), and as a ratio to GET /healthz measured in the same run.
+ * A benchmark reports figures; it asserts nothing.
  *
  * Needs build/ (`npm run build`, or left by `npm start` / `npm test`). The database:
  *   - default: a throwaway PostgreSQL cluster in a temporary folder on a free loopback port,
@@ -18,12 +20,12 @@ import { execFileSync, spawn } from 'node:child_process';
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import { chmodSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
-import { cpus, tmpdir } from 'node:os';
+import { availableParallelism, cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import postgres from 'postgres';
 import { oddFirstPeriodLoan } from './cases';
-import { runLoad, type LoadResult } from './load';
+import { ensureWrk, runWrk, type LoadResult } from './wrk';
 import { formatTable } from './timing';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
@@ -95,7 +97,7 @@ async function startServer(databaseUrl: string) {
 	const port = await freePort();
 	const baseURL = `http://127.0.0.1:${port}`;
 	const nodeArgs = (process.env.PINCER_BENCH_NODE_ARGS ?? '').split(' ').filter(Boolean);
-	const child = spawn(process.execPath, [...nodeArgs, 'build'], {
+	const child = spawn(process.execPath, [...nodeArgs, 'scripts/serve.js'], {
 		cwd: root,
 		env: {
 			...process.env,
@@ -129,7 +131,10 @@ async function startServer(databaseUrl: string) {
 		await Promise.race([exited, new Promise((r) => setTimeout(r, 10_000))]);
 		if (child.exitCode === null) child.kill('SIGKILL');
 	};
-	return { baseURL, stop, pid: child.pid };
+	// As scripts/serve.js decides it.
+	const wanted = Number(process.env.PINCER_WORKERS);
+	const workers = Number.isInteger(wanted) && wanted > 0 ? wanted : availableParallelism();
+	return { baseURL, stop, pid: child.pid, workers };
 }
 
 type ProcStat = { pid: number; ppid: number; comm: string; cpu: number };
@@ -170,11 +175,9 @@ function cpuSnapshot(serverPid: number | undefined) {
 	}
 	const sum = (keep: (p: ProcStat) => boolean) =>
 		list.filter(keep).reduce((total, p) => total + p.cpu, 0);
-	const self = process.cpuUsage();
 	return {
 		server: sum((p) => family.has(p.pid)),
-		postgres: sum((p) => p.comm === 'postgres'),
-		load: (self.user + self.system) / 1000
+		postgres: sum((p) => p.comm === 'postgres')
 	};
 }
 
@@ -194,6 +197,7 @@ async function main() {
 		say('build/ is missing: run `npm run build` first.');
 		process.exit(1);
 	}
+	ensureWrk(root);
 	const given = process.env.PINCER_BENCH_DATABASE_URL;
 	const database = given ? { url: given, remove: () => {} } : await throwawayDatabase();
 	const sql = postgres(database.url, { max: 1, onnotice: () => {} });
@@ -219,8 +223,8 @@ async function main() {
 		const first = (await check.json()) as { disclosed?: string };
 		if (check.status !== 200) throw new Error(`POST /solve answered ${check.status}`);
 		say(`warming up (2 s); one solve discloses ${first.disclosed}%`);
-		await runLoad(solve, CONNECTIONS, 2);
-		const health = await runLoad(
+		runWrk(solve, CONNECTIONS, 2);
+		const health = runWrk(
 			{ url: `${server.baseURL}/healthz`, method: 'GET' },
 			CONNECTIONS,
 			Math.max(2, SECONDS / 2)
@@ -229,7 +233,7 @@ async function main() {
 			select count(*)::int as before from audit_events
 			where workspace_id = ${bench.workspaceId} and action = 'solve.run'`;
 		const cpuBefore = cpuSnapshot(server.pid);
-		const solved = await runLoad(solve, CONNECTIONS, SECONDS);
+		const solved = runWrk(solve, CONNECTIONS, SECONDS);
 		const cpuAfter = cpuSnapshot(server.pid);
 		const [{ after }] = await sql`
 			select count(*)::int as after from audit_events
@@ -237,7 +241,7 @@ async function main() {
 
 		console.log(
 			`POST /api/v1/solve, 360 monthly payments (apr-us), ${CONNECTIONS} connections, ${SECONDS} s; ` +
-				`reference GET /healthz in the same run (node build, ${cpus().length} cores)`
+				`reference GET /healthz in the same run (${server.workers} server processes, ${cpus().length} cores)`
 		);
 		console.log(
 			formatTable(
@@ -251,11 +255,11 @@ async function main() {
 				`solve.run audit events written during the run: ${after - before} ` +
 				`(2xx answers: ${solved.requests - solved.failures})`
 		);
-		const per = (part: keyof typeof cpuAfter) =>
-			`${((cpuAfter[part] - cpuBefore[part]) / solved.requests).toFixed(2)} ms`;
+		const per = (used: number) => `${(used / solved.requests).toFixed(2)} ms`;
 		console.log(
-			`CPU per POST /solve: server ${per('server')}, PostgreSQL ${per('postgres')}` +
-				`${given ? ' (every postgres process on the machine)' : ''}, load generator ${per('load')}`
+			`CPU per POST /solve: server ${per(cpuAfter.server - cpuBefore.server)}, ` +
+				`PostgreSQL ${per(cpuAfter.postgres - cpuBefore.postgres)}` +
+				`${given ? ' (every postgres process on the machine)' : ''}, wrk ${per(solved.cpu)}`
 		);
 		console.log(
 			`target ≥ ${TARGET.perSecond} req/s and p99 < ${TARGET.p99} ms: ${meets ? 'met' : 'NOT met'} ` +

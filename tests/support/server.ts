@@ -1,4 +1,5 @@
-// Starts the built app (`node build`) for end-to-end tests, against a given database.
+// Starts the built app for end-to-end tests the way `npm start` serves it (scripts/serve.js,
+// here with two worker processes), against a given database.
 import { spawn, type ChildProcess } from 'node:child_process';
 import { createServer } from 'node:net';
 import { fileURLToPath } from 'node:url';
@@ -23,10 +24,11 @@ export type RunningApp = { baseURL: string; process: ChildProcess; stop: () => P
 export async function startApp(env: Record<string, string>): Promise<RunningApp> {
 	const port = await freePort();
 	const baseURL = `http://127.0.0.1:${port}`;
-	const child = spawn(process.execPath, ['build'], {
+	const child = spawn(process.execPath, ['scripts/serve.js'], {
 		cwd: repoRoot,
 		env: {
 			...process.env,
+			PINCER_WORKERS: '2',
 			HOST: '127.0.0.1',
 			PORT: String(port),
 			ORIGIN: baseURL,
