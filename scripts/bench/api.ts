@@ -14,7 +14,8 @@
  *     events to it, which stay (the audit trail is append-only).
  * The server runs with PINCER_API_RATE_LIMIT raised so the per-key limit does not cap the run.
  * Knobs: PINCER_BENCH_SECONDS (10), PINCER_BENCH_CONNECTIONS (32), PINCER_BENCH_NODE_ARGS (extra
- * node options for the server, e.g. `--cpu-prof --cpu-prof-dir=/tmp/prof` to profile it).
+ * node options for the server, e.g. `--cpu-prof --cpu-prof-dir=/tmp/prof` to profile it),
+ * PINCER_WORKERS (server processes), PINCER_BENCH_VERBOSE=1 (print wrk's own reports).
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { createHash, randomBytes, randomUUID } from 'node:crypto';

@@ -90,6 +90,7 @@ export function runWrk(target: LoadTarget, connections: number, seconds: number)
 		const cpu = reapedChildrenCpu() - cpuBefore;
 		if (run.status !== 0) throw new Error(`wrk failed:\n${run.stderr || run.stdout}`);
 		const out = run.stdout;
+		if (process.env.PINCER_BENCH_VERBOSE) console.error(out);
 		const find = (pattern: RegExp) => {
 			const match = pattern.exec(out);
 			if (!match) throw new Error(`wrk's report lacks ${pattern}:\n${out}`);

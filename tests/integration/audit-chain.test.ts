@@ -1,6 +1,9 @@
 import postgres from 'postgres';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { asc, eq } from 'drizzle-orm';
 import { appendAuditEvent, checkChain } from '$lib/server/audit';
+import { appendAuditEvents } from '$lib/server/audit/chain';
+import { auditEvents } from '$lib/server/db/schema';
 import { db } from '$lib/server/db';
 import { requireEnv } from '../support/db';
 import { makeMember, makeWorkspace } from '../support/fixtures';
@@ -87,5 +90,40 @@ describe('audit hash chain', () => {
 			)
 		);
 		expect(await checkChain(db, workspace.id)).toEqual({ intact: true, events: 25 });
+	});
+
+	it('hashes in the database exactly as the app checks them, for any text and in given order', async () => {
+		const workspace = await makeWorkspace();
+		const { user } = await makeMember(workspace.id, 'admin');
+		const texts = [
+			'Crédit à la consommation',
+			'Zinsen 1½ %',
+			'利率',
+			'emoji 🦀',
+			'quote " and \\ slash'
+		];
+		const appended = await db.transaction((tx) =>
+			appendAuditEvents(
+				tx,
+				workspace.id,
+				texts.map((text, i) => ({
+					workspaceId: workspace.id,
+					actorId: i % 2 ? user.id : null,
+					action: 'test.text',
+					subject: i === 0 ? null : `thing:${text}`,
+					payload: { text, nested: { z: [text, i], a: null } }
+				}))
+			)
+		);
+		expect(appended.map((e) => e.id)).toEqual([...appended.map((e) => e.id)].sort((a, b) => a - b));
+		const rows = await db
+			.select({ id: auditEvents.id, prevHash: auditEvents.prevHash, hash: auditEvents.hash })
+			.from(auditEvents)
+			.where(eq(auditEvents.workspaceId, workspace.id))
+			.orderBy(asc(auditEvents.id));
+		expect(rows.map((r) => r.hash)).toEqual(appended.map((e) => e.hash));
+		expect(rows[0].prevHash).toBe('');
+		rows.slice(1).forEach((row, i) => expect(row.prevHash).toBe(rows[i].hash));
+		expect(await checkChain(db, workspace.id)).toEqual({ intact: true, events: texts.length });
 	});
 });

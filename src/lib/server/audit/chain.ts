@@ -4,7 +4,7 @@
 // per chain with a transaction-scoped advisory lock. No $env or framework imports: the seed
 // script uses this module too.
 import { createHash } from 'node:crypto';
-import { and, asc, desc, eq, gt, isNull, sql } from 'drizzle-orm';
+import { and, asc, eq, gt, isNull, sql, type SQLWrapper } from 'drizzle-orm';
 import { auditEvents } from '../db/schema/audit';
 import type { Executor } from '../db/types';
 
@@ -31,8 +31,9 @@ export function canonicalJson(value: unknown): string {
 	return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
 }
 
-export function eventHash(prevHash: string, event: ChainedContent): string {
-	const content = canonicalJson({
+/** The canonical JSON an event's hash covers (besides the previous event's hash). */
+export function eventContent(event: ChainedContent): string {
+	return canonicalJson({
 		workspaceId: event.workspaceId,
 		actorId: event.actorId,
 		action: event.action,
@@ -40,7 +41,13 @@ export function eventHash(prevHash: string, event: ChainedContent): string {
 		payload: event.payload,
 		createdAt: event.createdAt.toISOString()
 	});
-	return createHash('sha256').update(`${prevHash}\n${content}`).digest('hex');
+}
+
+/** hex(SHA-256(prevHash, newline, content)); the audit_append function computes the same. */
+export function eventHash(prevHash: string, event: ChainedContent): string {
+	return createHash('sha256')
+		.update(`${prevHash}\n${eventContent(event)}`)
+		.digest('hex');
 }
 
 const chainOf = (workspaceId: string | null) =>
@@ -56,31 +63,24 @@ export async function appendAuditEvent(
 }
 
 /**
- * Appends events of one chain, in the order given, under one hold of the chain's lock (one
- * multi-row insert: identity values follow the VALUES order, so ids follow the chain). Call
- * inside the transaction of the changes they record.
+ * Appends events of one chain, in the order given, in one round trip: the audit_append function
+ * (migration 0005) takes the chain's lock, reads its last hash and inserts the events hashed on
+ * from it. Call inside the transaction of the changes they record; the lock is held until it ends.
  */
 export async function appendAuditEvents(
 	tx: Executor,
 	workspaceId: string | null,
-	inputs: AuditInput[]
+	inputs: AuditInput[],
+	/** A change to make in the same statement (a data-modifying WITH), e.g. the rows audited. */
+	alongside?: SQLWrapper
 ): Promise<{ id: number; hash: string }[]> {
 	if (inputs.some((input) => input.workspaceId !== workspaceId)) {
 		throw new Error('appendAuditEvents: every event must belong to the chain it is appended to');
 	}
 	if (inputs.length === 0) return [];
-	const key = `pincer.audit:${workspaceId ?? 'global'}`;
-	await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${key}, 0))`);
-	const [last] = await tx
-		.select({ hash: auditEvents.hash })
-		.from(auditEvents)
-		.where(chainOf(workspaceId))
-		.orderBy(desc(auditEvents.id))
-		.limit(1);
 	const createdAt = new Date();
-	let prevHash = last?.hash ?? '';
-	const rows = inputs.map((input) => {
-		const content: ChainedContent = {
+	const events = inputs.map((input) => {
+		const event: ChainedContent = {
 			workspaceId,
 			actorId: input.actorId,
 			action: input.action,
@@ -88,17 +88,13 @@ export async function appendAuditEvents(
 			payload: input.payload ?? {},
 			createdAt
 		};
-		const row = { ...content, prevHash, hash: eventHash(prevHash, content) };
-		prevHash = row.hash;
-		return row;
+		return { ...event, createdAt: createdAt.toISOString(), content: eventContent(event) };
 	});
-	const inserted = await tx
-		.insert(auditEvents)
-		.values(rows)
-		.returning({ id: auditEvents.id, hash: auditEvents.hash });
-	// RETURNING's order is not promised; the hash (unique within a chain) pairs rows back.
-	const idOf = new Map(inserted.map((row) => [row.hash, row.id]));
-	return rows.map((row) => ({ id: idOf.get(row.hash)!, hash: row.hash }));
+	const append = sql`select event_id, event_hash from audit_append(${workspaceId}::uuid, ${JSON.stringify(events)}::jsonb)`;
+	const rows = await tx.execute<{ event_id: string; event_hash: string }>(
+		alongside ? sql`with alongside as ${alongside} ${append}` : append
+	);
+	return [...rows].map((row) => ({ id: Number(row.event_id), hash: row.event_hash }));
 }
 
 export type ChainCheck =

@@ -49,7 +49,7 @@ export async function recordSolves(
 ): Promise<string[]> {
 	if (records.length === 0) return [];
 	const ids = records.map(() => randomUUID());
-	await tx.insert(solves).values(
+	const stored = tx.insert(solves).values(
 		records.map(({ acting, subject, request, result }, i) => ({
 			id: ids[i],
 			workspaceId: acting.workspaceId,
@@ -65,7 +65,9 @@ export async function recordSolves(
 			createdBy: acting.actorId
 		}))
 	);
-	await appendAuditEvents(
+	// One statement, so one round trip and atomic even outside a transaction: the solve rows
+	// are inserted by a data-modifying WITH, the events by the chain's append function.
+	const events = await appendAuditEvents(
 		tx,
 		workspaceId,
 		records.map(({ acting, subject, request, result }, i) => ({
@@ -81,8 +83,10 @@ export async function recordSolves(
 				rate: result.rate,
 				roots: result.roots.length
 			}
-		}))
+		})),
+		stored
 	);
+	if (events.length !== ids.length) throw new Error('recordSolves: an audit event is missing');
 	return ids;
 }
 
