@@ -61,7 +61,8 @@ export function wholeMonthsBack(
 	nominalDay: number
 ): { months: number; remainderDays: number; boundary: CalendarDate } {
 	const start = dayNumber(earlier);
-	let months = Math.max(0, (later.year - earlier.year) * 12 + (later.month - earlier.month) + 1);
+	// A boundary in earlier's own month or later: one more month back always falls before it.
+	let months = Math.max(0, (later.year - earlier.year) * 12 + (later.month - earlier.month));
 	while (months > 0 && dayNumber(monthsBack(later, months, nominalDay)) < start) months -= 1;
 	const boundary = months === 0 ? later : monthsBack(later, months, nominalDay);
 	return { months, remainderDays: dayNumber(boundary) - start, boundary };

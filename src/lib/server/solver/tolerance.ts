@@ -1,5 +1,5 @@
 import type { RegularityResult, SolveResult } from '../../schemas/solve';
-import { classifyInterval, scheduledDay } from './unit-period';
+import { classifyInterval, intervalKey, scheduledDay } from './unit-period';
 import { parseDate } from './day-count';
 import { Dec, toPlain } from './decimal';
 
@@ -24,7 +24,7 @@ export function regularity(loan: LoanSchedule): RegularityResult {
 	const day = scheduledDay(dates);
 	const periods = new Set<string>();
 	for (let k = 1; k < dates.length; k += 1) {
-		periods.add(JSON.stringify(classifyInterval(dates[k - 1], dates[k], day)));
+		periods.add(intervalKey(classifyInterval(dates[k - 1], dates[k], day)));
 	}
 	if (periods.size > 1) reasons.push('irregular payment periods (after the first period)');
 	const middle = loan.payments.slice(1, -1).map((p) => p.amount);

@@ -68,8 +68,13 @@ export function classifyInterval(
 	to: CalendarDate,
 	scheduled: number
 ): Interval {
+	const nominalDay = countingDay(to, scheduled);
+	// Fast path for the common case, same day of month: `from` is then exactly the boundary
+	// whole months back from `to`, which is what wholeMonthsBack would find.
+	const months = (to.year - from.year) * 12 + (to.month - from.month);
+	if (months >= 1 && from.day === to.day && nominalDay === to.day) return { kind: 'month', months };
 	const days = daysBetween(from, to);
-	const back = wholeMonthsBack(from, to, countingDay(to, scheduled));
+	const back = wholeMonthsBack(from, to, nominalDay);
 	if (back.months >= 1 && back.remainderDays === 0) return { kind: 'month', months: back.months };
 	const half = halfMonthAfter(from);
 	const sameMonthEnd =
@@ -77,6 +82,20 @@ export function classifyInterval(
 	if (daysBetween(half, to) === 0 || sameMonthEnd) return { kind: 'semimonth' };
 	if (days > 0 && days % 7 === 0) return { kind: 'week', weeks: days / 7 };
 	return { kind: 'day', days };
+}
+
+/** A string that tells intervals apart (the same for equal intervals). */
+export function intervalKey(interval: Interval): string {
+	switch (interval.kind) {
+		case 'month':
+			return `month:${interval.months}`;
+		case 'week':
+			return `week:${interval.weeks}`;
+		case 'day':
+			return `day:${interval.days}`;
+		case 'semimonth':
+			return 'semimonth';
+	}
 }
 
 function approximateDays(interval: Interval): number {
@@ -154,7 +173,7 @@ export function unitPeriodOf(advances: CalendarDate[], payments: CalendarDate[])
 	const tally = new Map<string, { interval: Interval; count: number }>();
 	for (const period of periods) {
 		if (!isStandard(period)) continue;
-		const key = JSON.stringify(toUnit(period));
+		const key = intervalKey(period);
 		const entry = tally.get(key) ?? { interval: period, count: 0 };
 		entry.count += 1;
 		tally.set(key, entry);
