@@ -81,6 +81,9 @@ describe('API keys', () => {
 		const statuses = uses.map((u) => u.status);
 		expect(statuses.filter((s) => s === 'allowed')).toHaveLength(10);
 		expect(statuses.filter((s) => s === 'limited')).toHaveLength(15);
+		// Calls counted together still get one place each in the window: 1 to 25, none twice.
+		const places = uses.map((u) => ('count' in u ? u.count : 0)).sort((a, b) => a - b);
+		expect(places).toEqual(Array.from({ length: 25 }, (_, i) => i + 1));
 		for (const use of uses) {
 			if (use.status !== 'limited') continue;
 			expect(use.retryAfter).toBeGreaterThanOrEqual(1);

@@ -5,6 +5,7 @@ import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import { appendAuditEvent } from '../audit/chain';
 import type { Standing } from '../billing/status';
 import { db } from '../db';
+import { grouped } from '../db/grouped';
 import { apiKeys, users, type Role } from '../db/schema';
 
 export const KEY_PREFIX = 'pincer_';
@@ -128,24 +129,37 @@ type KeyRow = {
 /**
  * Looks a presented key up by its digest and, when it is live, counts this request in the key's
  * per-minute window (fixed windows in api_request_counts, so the limit holds across server
- * processes) and refreshes its last use at most once a minute. One round trip to PostgreSQL.
- * Every request of a key updates the same counter row, so its commit skips the wait for the
- * WAL flush (synchronous_commit off for this statement only): the row lock is released at once,
- * and a crash can at worst forget the last few counts.
+ * processes) and refreshes its last use at most once a minute. Calls with one key that arrive
+ * while its lookup is under way are counted together by the next one (db/grouped.ts): the
+ * counter row is updated once per group, by the group's size, and each call gets its own place
+ * in the window's count, exactly as if they had come one by one.
  */
-export async function useApiKey(presented: string, limitPerMinute: number): Promise<KeyUse> {
-	if (!KEY_PATTERN.test(presented)) return { status: 'unknown' };
+export function useApiKey(presented: string, limitPerMinute: number): Promise<KeyUse> {
+	if (!KEY_PATTERN.test(presented)) return Promise.resolve({ status: 'unknown' });
+	return countUse(hashApiKey(presented), limitPerMinute);
+}
+
+const countUse = grouped<number, KeyUse>(countUses, 1000);
+
+/**
+ * One round trip to PostgreSQL for `limits.length` requests of one key. Every request of a key
+ * updates the same counter row, so its commit skips the wait for the WAL flush
+ * (synchronous_commit off for this statement only): the row lock is released at once, and a
+ * crash can at worst forget the last few counts.
+ */
+async function countUses(keyHash: string, limits: number[]): Promise<KeyUse[]> {
+	const calls = limits.length;
 	const [row] = await db.execute<KeyRow>(sql`
 		with key as (
 			select k.id, k.workspace_id, k.scope, k.created_by, k.revoked_at,
 				w.name as workspace_name, w.subscription_status, w.trial_ends_at
 			from api_keys k join workspaces w on w.id = k.workspace_id
-			where k.key_hash = ${hashApiKey(presented)}
+			where k.key_hash = ${keyHash}
 		),
 		counted as (
 			insert into api_request_counts (key_id, minute, count)
-			select id, date_trunc('minute', now()), 1 from key where revoked_at is null
-			on conflict (key_id, minute) do update set count = api_request_counts.count + 1
+			select id, date_trunc('minute', now()), ${calls} from key where revoked_at is null
+			on conflict (key_id, minute) do update set count = api_request_counts.count + excluded.count
 			returning count, xmax = 0 as fresh,
 				extract(epoch from minute + interval '1 minute' - now()) as seconds_left
 		),
@@ -160,24 +174,26 @@ export async function useApiKey(presented: string, limitPerMinute: number): Prom
 			(select set_config('synchronous_commit', 'off', true)) as async_commit
 		from key left join counted on true
 	`);
-	if (!row) return { status: 'unknown' };
-	if (row.revoked) return { status: 'revoked' };
+	if (!row) return limits.map(() => ({ status: 'unknown' }));
+	if (row.revoked) return limits.map(() => ({ status: 'revoked' }));
 	if (row.fresh) void forgetOldWindows(row.id);
-	const count = Number(row.count);
-	return {
-		status: count > limitPerMinute ? 'limited' : 'allowed',
+	const first = Number(row.count) - calls + 1;
+	const standing = {
+		name: row.workspace_name,
+		subscriptionStatus: row.subscription_status,
+		trialEndsAt: row.trial_ends_at === null ? null : new Date(row.trial_ends_at)
+	};
+	const retryAfter = Math.max(1, Math.ceil(Number(row.seconds_left)));
+	return limits.map((limit, i) => ({
+		status: first + i > limit ? 'limited' : 'allowed',
 		keyId: row.id,
 		workspaceId: row.workspace_id,
-		standing: {
-			name: row.workspace_name,
-			subscriptionStatus: row.subscription_status,
-			trialEndsAt: row.trial_ends_at === null ? null : new Date(row.trial_ends_at)
-		},
+		standing,
 		scope: row.scope,
 		actorId: row.created_by,
-		count,
-		retryAfter: Math.max(1, Math.ceil(Number(row.seconds_left)))
-	};
+		count: first + i,
+		retryAfter
+	}));
 }
 
 /** Drops a key's finished windows older than a day; runs when a new window opens. */

@@ -7,63 +7,46 @@
 // the commit holding its solve and its audit event; an idle server writes a lone call at once.
 // Measured with `npm run bench:api`: 167 req/s with a transaction per call, about 500 now.
 import { db } from '../db';
+import { grouped } from '../db/grouped';
 import { recordSolves, type SolveRecord } from './index';
 
 /** Most solves one statement stores (bounds its size: about 15 kB a 30-year loan request). */
 export const MAX_BATCH = 64;
 
-type Waiting = {
-	record: SolveRecord;
-	resolve: (id: string) => void;
-	reject: (err: unknown) => void;
-};
-
-/** Per workspace, the calls waiting for the next statement; present while one is running. */
-const queues = new Map<string, Waiting[]>();
-
-/** Stores a solved record (solve row and solve.run event, committed together); its id once committed. */
-export function storeSolve(record: SolveRecord): Promise<string> {
-	return new Promise((resolve, reject) => {
-		const workspaceId = record.acting.workspaceId;
-		const waiting = queues.get(workspaceId);
-		if (waiting) {
-			waiting.push({ record, resolve, reject });
-			return;
-		}
-		const queue = [{ record, resolve, reject }];
-		queues.set(workspaceId, queue);
-		void writeWhileWaiting(workspaceId, queue);
-	});
-}
-
-async function writeWhileWaiting(workspaceId: string, queue: Waiting[]) {
-	try {
-		while (queue.length > 0) await write(workspaceId, queue.splice(0, MAX_BATCH));
-	} finally {
-		queues.delete(workspaceId);
-	}
-}
-
 /** SQLSTATE classes of errors caused by the data of a row (22 data exception, 23 constraint). */
 const DATA_ERROR = /^2[23]/;
 
-async function write(workspaceId: string, batch: Waiting[]): Promise<void> {
+function sqlStateOf(err: unknown): string {
+	const { code, cause } = err as { code?: unknown; cause?: { code?: unknown } };
+	return String(cause?.code ?? code ?? '');
+}
+
+/**
+ * Stores one group (recordSolves is a single statement: atomic without a transaction block of
+ * its own); per record its solve id, or the error that refused it.
+ */
+async function write(workspaceId: string, records: SolveRecord[]): Promise<(string | Error)[]> {
 	try {
-		// recordSolves is a single statement: atomic without a transaction block of its own.
-		const ids = await recordSolves(
-			db,
-			workspaceId,
-			batch.map((w) => w.record)
-		);
-		batch.forEach((w, i) => w.resolve(ids[i]));
+		return await recordSolves(db, workspaceId, records);
 	} catch (err) {
-		const code = (err as { code?: unknown; cause?: { code?: unknown } }).cause?.code;
-		const sqlState = typeof code === 'string' ? code : String((err as { code?: unknown }).code);
-		if (batch.length > 1 && DATA_ERROR.test(sqlState)) {
-			// One record the database refuses must not fail the calls that came with it.
-			for (const waiting of batch) await write(workspaceId, [waiting]);
-			return;
+		if (records.length === 1 || !DATA_ERROR.test(sqlStateOf(err))) throw err;
+		// One record the database refuses must not fail the calls that came with it.
+		const results: (string | Error)[] = [];
+		for (const record of records) {
+			const [result] = await write(workspaceId, [record]).catch((e: unknown) => [
+				e instanceof Error ? e : new Error(String(e))
+			]);
+			results.push(result);
 		}
-		for (const waiting of batch) waiting.reject(err);
+		return results;
 	}
+}
+
+const store = grouped<SolveRecord, string | Error>(write, MAX_BATCH);
+
+/** Stores a solved record (solve row and solve.run event, committed together); its id once committed. */
+export async function storeSolve(record: SolveRecord): Promise<string> {
+	const id = await store(record.acting.workspaceId, record);
+	if (id instanceof Error) throw id;
+	return id;
 }
