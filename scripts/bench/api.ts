@@ -1,7 +1,7 @@
 /**
  * `npm run bench:api`: throughput and latency of POST /api/v1/solve for a 360-payment loan on the
  * built server as `npm start` serves it (scripts/serve.js, one process per core unless
- * PINCER_WORKERS says otherwise), 32 keep-alive connections for 10 s from wrk in a second process
+ * PINCER_WORKERS says otherwise), 32 keep-alive connections, three rounds of 10 s, from wrk in a second process
  * (Debian's package, installed when missing), against the issue's target (≥ 300 requests/s,
  * p99 < 100 ms, audit write included), and as a ratio to GET /healthz measured in the same run.
  * A benchmark reports figures; it asserts nothing.
@@ -13,7 +13,7 @@
  *     the one `npm start` serves); the run adds a "Bench workspace" with its solves and audit
  *     events to it, which stay (the audit trail is append-only).
  * The server runs with PINCER_API_RATE_LIMIT raised so the per-key limit does not cap the run.
- * Knobs: PINCER_BENCH_SECONDS (10), PINCER_BENCH_CONNECTIONS (32), PINCER_BENCH_NODE_ARGS (extra
+ * Knobs: PINCER_BENCH_SECONDS (10), PINCER_BENCH_ROUNDS (3), PINCER_BENCH_CONNECTIONS (32), PINCER_BENCH_NODE_ARGS (extra
  * node options for the server, e.g. `--cpu-prof --cpu-prof-dir=/tmp/prof` to profile it),
  * PINCER_WORKERS (server processes), PINCER_BENCH_VERBOSE=1 (print wrk's own reports).
  */
@@ -31,6 +31,7 @@ import { formatTable } from './timing';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const SECONDS = Number(process.env.PINCER_BENCH_SECONDS ?? 10);
+const ROUNDS = Math.max(1, Number(process.env.PINCER_BENCH_ROUNDS ?? 3));
 const CONNECTIONS = Number(process.env.PINCER_BENCH_CONNECTIONS ?? 32);
 const TARGET = { perSecond: 300, p99: 100 };
 
@@ -230,41 +231,65 @@ async function main() {
 			CONNECTIONS,
 			Math.max(2, SECONDS / 2)
 		);
-		const [{ before }] = await sql`
-			select count(*)::int as before from audit_events
-			where workspace_id = ${bench.workspaceId} and action = 'solve.run'`;
-		const cpuBefore = cpuSnapshot(server.pid);
-		const solved = runWrk(solve, CONNECTIONS, SECONDS);
-		const cpuAfter = cpuSnapshot(server.pid);
-		const [{ after }] = await sql`
-			select count(*)::int as after from audit_events
-			where workspace_id = ${bench.workspaceId} and action = 'solve.run'`;
+		const solveEvents = async () => {
+			const [{ events }] = await sql`
+				select count(*)::int as events from audit_events
+				where workspace_id = ${bench.workspaceId} and action = 'solve.run'`;
+			return events as number;
+		};
+		// Several rounds: on a shared 2-core machine one round's p99 moves by 10-20 ms.
+		const rounds: {
+			load: LoadResult;
+			cpu: Record<'server' | 'postgres', number>;
+			events: number;
+		}[] = [];
+		for (let round = 0; round < ROUNDS; round += 1) {
+			const eventsBefore = await solveEvents();
+			const cpuBefore = cpuSnapshot(server.pid);
+			const load = runWrk(solve, CONNECTIONS, SECONDS);
+			const cpuAfter = cpuSnapshot(server.pid);
+			rounds.push({
+				load,
+				cpu: {
+					server: cpuAfter.server - cpuBefore.server,
+					postgres: cpuAfter.postgres - cpuBefore.postgres
+				},
+				events: (await solveEvents()) - eventsBefore
+			});
+		}
 
 		console.log(
-			`POST /api/v1/solve, 360 monthly payments (apr-us), ${CONNECTIONS} connections, ${SECONDS} s; ` +
-				`reference GET /healthz in the same run (${server.workers} server processes, ${cpus().length} cores)`
+			`POST /api/v1/solve, 360 monthly payments (apr-us), ${CONNECTIONS} connections, ` +
+				`${ROUNDS} rounds of ${SECONDS} s; reference GET /healthz in the same run ` +
+				`(${server.workers} server processes, ${cpus().length} cores)`
 		);
 		console.log(
 			formatTable(
 				['case', 'requests', 'non-2xx', 'req/s', 'p50', 'p99', 'max'],
-				[row('GET /healthz (reference)', health), row('POST /api/v1/solve', solved)]
+				[
+					row('GET /healthz (reference)', health),
+					...rounds.map((r, i) => row(`POST /api/v1/solve, round ${i + 1}`, r.load))
+				]
 			)
 		);
-		const meets = solved.perSecond >= TARGET.perSecond && solved.p99 < TARGET.p99;
+		for (const [i, { load, cpu, events }] of rounds.entries()) {
+			const per = (used: number) => `${(used / load.requests).toFixed(2)} ms`;
+			console.log(
+				`round ${i + 1}: solve/healthz throughput ${(load.perSecond / health.perSecond).toFixed(3)}; ` +
+					`CPU per call: server ${per(cpu.server)}, PostgreSQL ${per(cpu.postgres)}` +
+					`${given ? ' (every postgres process on the machine)' : ''}, wrk ${per(load.cpu)}; ` +
+					`solve.run events written ${events} for ${load.requests - load.failures} answers counted`
+			);
+		}
+		const meets = rounds.filter(
+			({ load }) => load.perSecond >= TARGET.perSecond && load.p99 < TARGET.p99
+		).length;
+		const byP99 = [...rounds].sort((a, b) => a.load.p99 - b.load.p99);
+		const median = byP99[Math.floor(byP99.length / 2)].load;
 		console.log(
-			`ratio solve/healthz throughput: ${(solved.perSecond / health.perSecond).toFixed(3)}; ` +
-				`solve.run audit events written during the run: ${after - before} ` +
-				`(2xx answers: ${solved.requests - solved.failures})`
-		);
-		const per = (used: number) => `${(used / solved.requests).toFixed(2)} ms`;
-		console.log(
-			`CPU per POST /solve: server ${per(cpuAfter.server - cpuBefore.server)}, ` +
-				`PostgreSQL ${per(cpuAfter.postgres - cpuBefore.postgres)}` +
-				`${given ? ' (every postgres process on the machine)' : ''}, wrk ${per(solved.cpu)}`
-		);
-		console.log(
-			`target ≥ ${TARGET.perSecond} req/s and p99 < ${TARGET.p99} ms: ${meets ? 'met' : 'NOT met'} ` +
-				`(${solved.perSecond.toFixed(0)} req/s, p99 ${ms(solved.p99)})`
+			`target ≥ ${TARGET.perSecond} req/s and p99 < ${TARGET.p99} ms: met in ${meets} of ${ROUNDS} rounds ` +
+				`(median round: ${median.perSecond.toFixed(0)} req/s, p99 ${ms(median.p99)}). ` +
+				`wrk stops counting at its deadline; calls in flight then are still written.`
 		);
 	} finally {
 		await server?.stop();
