@@ -63,9 +63,15 @@ interface Context {
 	warnings: Warning[];
 }
 
-/** x = e^y − 1 in decimal; exact enough near −100%, where float64 would lose 1 + x. */
+/**
+ * A decimal rate x with 1 + x = e^y to float64 accuracy. Near −100% float64 would lose 1 + x in
+ * x itself, so there 1 + x is computed first (Math.exp keeps full relative precision down to
+ * e^−700) and 1 is subtracted in decimal; below that, decimal's own exp. Any such point serves:
+ * every sign is decided by evaluating the equation there in decimal.
+ */
 function rateAt(y: number): Dec {
-	return y < -0.5 ? new Dec(y).exp().minus(ONE) : new Dec(Math.expm1(y));
+	if (y >= -0.5) return new Dec(Math.expm1(y));
+	return y > -700 ? new Dec(Math.exp(y)).minus(ONE) : new Dec(y).exp().minus(ONE);
 }
 
 function refine(ctx: Context, start: Bracket): Refinement & { iterationBound?: number } {
