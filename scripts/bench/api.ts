@@ -32,6 +32,7 @@ import { formatTable } from './timing';
 const root = fileURLToPath(new URL('../..', import.meta.url));
 const SECONDS = Number(process.env.PINCER_BENCH_SECONDS ?? 10);
 const ROUNDS = Math.max(1, Number(process.env.PINCER_BENCH_ROUNDS ?? 3));
+const WARM_UP = 5;
 const CONNECTIONS = Number(process.env.PINCER_BENCH_CONNECTIONS ?? 32);
 const TARGET = { perSecond: 300, p99: 100 };
 
@@ -224,13 +225,15 @@ async function main() {
 		const check = await fetch(solve.url, solve);
 		const first = (await check.json()) as { disclosed?: string };
 		if (check.status !== 200) throw new Error(`POST /solve answered ${check.status}`);
-		say(`warming up (2 s); one solve discloses ${first.disclosed}%`);
-		runWrk(solve, CONNECTIONS, 2);
 		const health = runWrk(
 			{ url: `${server.baseURL}/healthz`, method: 'GET' },
 			CONNECTIONS,
 			Math.max(2, SECONDS / 2)
 		);
+		// Warm the solve path (JIT, prepared statements, the first autovacuum of new tables)
+		// right before the measured rounds.
+		say(`warming up (${WARM_UP} s); one solve discloses ${first.disclosed}%`);
+		runWrk(solve, CONNECTIONS, WARM_UP);
 		const solveEvents = async () => {
 			const [{ events }] = await sql`
 				select count(*)::int as events from audit_events
