@@ -18,9 +18,11 @@ async function actingIn() {
 	return { workspaceId: workspace.id, actorId: user.id };
 }
 
+/** The label rides along in the request (json) and in the result (jsonb). */
 function record(acting: SolveRecord['acting'], req: SolveRequest): SolveRecord {
-	const plain = { kind: 'irr', flows: (req as { flows: string[] }).flows } as SolveRequest;
-	return { acting, subject: { type: 'api', id: null }, request: req, result: solve(plain) };
+	const { flows, label } = req as unknown as { flows: string[]; label: string };
+	const result = { ...solve({ kind: 'irr', flows } as SolveRequest), label };
+	return { acting, subject: { type: 'api', id: null }, request: req, result };
 }
 
 type Row = { id: string; request: { label: string }; tx: string };
@@ -75,7 +77,7 @@ describe('group commit of API solves', () => {
 
 	it('a record the database refuses fails alone; the calls grouped with it are stored', async () => {
 		const acting = await actingIn();
-		// PostgreSQL's jsonb refuses the NUL character (SQLSTATE 22P05).
+		// PostgreSQL's jsonb (the result column) refuses the NUL character (SQLSTATE 22P05).
 		const labels = ['fine-1', 'fine-2', 'bad\u0000label', 'fine-3', 'fine-4'];
 		const outcomes = await Promise.allSettled(
 			labels.map((label) => storeSolve(record(acting, request(label))))
