@@ -86,6 +86,8 @@ function piecesOf(ticks: number[], coefficients: Dec[]): Piece[] {
 	return pieces;
 }
 
+type FractionTerms = { fraction: Dec; byTick: Map<number, Dec> };
+
 function gcd(a: number, b: number): number {
 	return b === 0 ? a : gcd(b, a % b);
 }
@@ -96,18 +98,26 @@ export function buildSchedule(
 	ticksPerUnit: number,
 	unitsPerYear: number
 ): Schedule {
-	const byFraction = new Map<string, { fraction: Dec; byTick: Map<number, Dec> }>();
+	const byFraction = new Map<string, FractionTerms>();
 	const byTime = new Map<number, Dec>();
 	let maxFraction = 0;
+	// Consecutive terms usually share their fraction: reuse the last group without a lookup.
+	let last: { numerator: number; denominator: number; group: FractionTerms } | null = null;
 	for (const term of terms) {
 		const numerator = term.fraction?.numerator ?? 0;
 		const denominator = term.fraction?.denominator ?? 1;
-		const divisor = numerator === 0 ? denominator : gcd(numerator, denominator);
-		const key = numerator === 0 ? '0' : `${numerator / divisor}/${denominator / divisor}`;
-		let group = byFraction.get(key);
-		if (!group) {
-			group = { fraction: new Dec(numerator).div(denominator), byTick: new Map() };
-			byFraction.set(key, group);
+		let group: FractionTerms | undefined;
+		if (last && last.numerator === numerator && last.denominator === denominator) {
+			group = last.group;
+		} else {
+			const divisor = numerator === 0 ? denominator : gcd(numerator, denominator);
+			const key = numerator === 0 ? '0' : `${numerator / divisor}/${denominator / divisor}`;
+			group = byFraction.get(key);
+			if (!group) {
+				group = { fraction: new Dec(numerator).div(denominator), byTick: new Map() };
+				byFraction.set(key, group);
+			}
+			last = { numerator, denominator, group };
 		}
 		const atTick = group.byTick.get(term.ticks);
 		group.byTick.set(term.ticks, atTick === undefined ? term.amount : atTick.plus(term.amount));
