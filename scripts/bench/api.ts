@@ -54,7 +54,7 @@ function freePort(): Promise<number> {
 async function throwawayDatabase() {
 	const folder = mkdtempSync(join(tmpdir(), 'pincer-bench-'));
 	chmodSync(folder, 0o711);
-	const env = {
+	const env: NodeJS.ProcessEnv = {
 		...process.env,
 		PINCER_PGDATA: join(folder, 'pg'),
 		PGPORT: String(await freePort()),
