@@ -139,7 +139,7 @@ export function useApiKey(presented: string, limitPerMinute: number): Promise<Ke
 	return countUse(hashApiKey(presented), limitPerMinute);
 }
 
-const countUse = grouped<number, KeyUse>(countUses, 1000);
+const countUse = grouped<number, KeyUse>(countUses, { items: 1000 });
 
 /**
  * One round trip to PostgreSQL for `limits.length` requests of one key. Every request of a key
