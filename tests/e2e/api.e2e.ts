@@ -342,6 +342,16 @@ describe('REST API v1', () => {
 				and subject = ${`solve:${answer.body.id}`}`;
 		expect(event.actor_id).toBe(adminId);
 		expect(event.payload.for).toBe(`api:${keys.officer.id}`);
+
+		// The body is stored as it came: laid out over lines, with an escaped key, it still
+		// reads back as the same request.
+		const laidOut = JSON.stringify(request, null, 2).replace('"kind"', '"\\u006bind"');
+		const again = await call('POST', '/solve', { key: keys.officer.key, body: laidOut });
+		expect(again.status).toBe(200);
+		const [row] = await sql`select request::text as text from solves where id = ${again.body.id}`;
+		expect(row.text).toBe(laidOut);
+		const readBack = await call('GET', `/solves/${again.body.id}`, { key: keys.reviewer.key });
+		expect(readBack.body.request).toEqual(request);
 	});
 
 	it('lets an admin make a key shown once, use it and revoke it; others cannot open the page', async () => {

@@ -22,7 +22,13 @@ async function actingIn() {
 function record(acting: SolveRecord['acting'], req: SolveRequest): SolveRecord {
 	const { flows, label } = req as unknown as { flows: string[]; label: string };
 	const result = { ...solve({ kind: 'irr', flows } as SolveRequest), label };
-	return { acting, subject: { type: 'api', id: null }, request: req, result };
+	return {
+		acting,
+		subject: { type: 'api', id: null },
+		kind: 'irr',
+		requestJson: JSON.stringify(req),
+		result
+	};
 }
 
 type Row = { id: string; request: { label: string }; tx: string };

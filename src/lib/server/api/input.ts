@@ -67,6 +67,17 @@ export async function readJson<S extends z.ZodType>(
 	request: Request,
 	schema: S
 ): Promise<z.output<S>> {
+	return (await readJsonText(request, schema)).value;
+}
+
+/**
+ * readJson, with the body's text as received. For a schema without transforms or defaults the
+ * text holds exactly the validated value, so it can be stored as it is.
+ */
+export async function readJsonText<S extends z.ZodType>(
+	request: Request,
+	schema: S
+): Promise<{ value: z.output<S>; text: string }> {
 	if (!JSON_TYPE.test(request.headers.get('content-type') ?? '')) {
 		throw new ApiError(
 			415,
@@ -92,7 +103,7 @@ export async function readJson<S extends z.ZodType>(
 	}
 	const parsed = schema.safeParse(data);
 	if (!parsed.success) throw validationError(parsed.error, 'body');
-	return parsed.data;
+	return { value: parsed.data, text };
 }
 
 /** The query string validated by `schema` (a strict object, so unknown parameters are refused). */

@@ -11,13 +11,19 @@ import { presentSolve } from './present';
 /**
  * Runs the engine, then stores the solve with its solve.run event (committed together, in a
  * group commit with the workspace's other calls of the moment); the result with its id.
+ * `requestJson` is the body as received, stored as it is: the parsed request is not kept while
+ * the call waits for its commit.
  */
-export async function solveForCaller(caller: ApiCaller, request: SolveRequest) {
+export async function solveForCaller(
+	caller: ApiCaller,
+	{ value: request, text: requestJson }: { value: SolveRequest; text: string }
+) {
 	const result = solve(request);
 	const id = await storeSolve({
 		acting: caller,
 		subject: { type: 'api', id: caller.keyId },
-		request,
+		kind: request.kind,
+		requestJson,
 		result
 	});
 	return { id, ...result };

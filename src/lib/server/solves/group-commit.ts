@@ -13,19 +13,10 @@ import { recordSolves, type SolveRecord } from './index';
 /** Most solves one statement stores. */
 export const MAX_BATCH = 64;
 /**
- * Most flows (dates with amounts) one statement stores, about 2.5 MB of requests: 64 loans of
- * 360 payments fit; requests of the schema's largest size go one or two at a time.
+ * Most request text one statement stores: 64 loans of 360 payments (about 15 kB each) fit;
+ * requests near the API's 5 MB limit go one at a time.
  */
-export const MAX_BATCH_FLOWS = 40_000;
-
-/** Dates with amounts in a request: what its stored size grows with. */
-function flowsIn({ request }: SolveRecord): number {
-	const lists = request as unknown as Record<string, unknown>;
-	return Object.values(lists).reduce<number>(
-		(sum, value) => sum + (Array.isArray(value) ? value.length : 0),
-		1
-	);
-}
+export const MAX_BATCH_BYTES = 2_500_000;
 
 /** SQLSTATE classes of errors caused by the data of a row (22 data exception, 23 constraint). */
 const DATA_ERROR = /^2[23]/;
@@ -58,7 +49,7 @@ async function write(workspaceId: string, records: SolveRecord[]): Promise<(stri
 
 const store = grouped<SolveRecord, string | Error>(write, {
 	items: MAX_BATCH,
-	weight: { of: flowsIn, max: MAX_BATCH_FLOWS }
+	weight: { of: (record) => record.requestJson.length, max: MAX_BATCH_BYTES }
 });
 
 /** Stores a solved record (solve row and solve.run event, committed together); its id once committed. */

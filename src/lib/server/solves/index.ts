@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { SolveRequest, SolveResult } from '$lib/schemas/solve';
 import { appendAuditEvents } from '../audit/chain';
 import { db } from '../db';
@@ -22,7 +22,13 @@ export type Acting = { workspaceId: string; actorId: string | null };
 export type SolveRecord = {
 	acting: Acting;
 	subject: Subject;
-	request: SolveRequest;
+	kind: SolveRequest['kind'];
+	/**
+	 * The request as JSON text, stored as it is: serialised, or the body an API caller sent
+	 * (valid for the request schema, which has no transforms or defaults, so it holds the same
+	 * request). Keeping text rather than objects keeps a waiting call's memory small.
+	 */
+	requestJson: string;
 	result: SolveResult;
 };
 
@@ -34,7 +40,9 @@ export async function solveAndRecord(
 	request: SolveRequest
 ): Promise<{ id: string; result: SolveResult }> {
 	const result = solve(request);
-	const [id] = await recordSolves(tx, acting.workspaceId, [{ acting, subject, request, result }]);
+	const [id] = await recordSolves(tx, acting.workspaceId, [
+		{ acting, subject, kind: request.kind, requestJson: JSON.stringify(request), result }
+	]);
 	return { id, result };
 }
 
@@ -50,16 +58,16 @@ export async function recordSolves(
 	if (records.length === 0) return [];
 	const ids = records.map(() => randomUUID());
 	const stored = tx.insert(solves).values(
-		records.map(({ acting, subject, request, result }, i) => ({
+		records.map(({ acting, subject, kind, requestJson, result }, i) => ({
 			id: ids[i],
 			workspaceId: acting.workspaceId,
 			subjectType: subject.type,
 			subjectId: subject.id ?? null,
 			subjectVersion: subject.version ?? null,
-			kind: request.kind,
+			kind,
 			status: result.status,
 			rate: result.rate,
-			request: request as unknown as Record<string, unknown>,
+			request: sql`${requestJson}::json`,
 			result: result as unknown as Record<string, unknown>,
 			engineVersion: ENGINE_VERSION,
 			createdBy: acting.actorId
@@ -70,7 +78,7 @@ export async function recordSolves(
 	const events = await appendAuditEvents(
 		tx,
 		workspaceId,
-		records.map(({ acting, subject, request, result }, i) => ({
+		records.map(({ acting, subject, kind, result }, i) => ({
 			workspaceId: acting.workspaceId,
 			actorId: acting.actorId,
 			action: 'solve.run',
@@ -78,7 +86,7 @@ export async function recordSolves(
 			payload: {
 				for: subject.id ? `${subject.type}:${subject.id}` : subject.type,
 				version: subject.version ?? null,
-				kind: request.kind,
+				kind,
 				status: result.status,
 				rate: result.rate,
 				roots: result.roots.length

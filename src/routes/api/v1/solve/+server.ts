@@ -1,7 +1,7 @@
 import { requireApiCaller } from '$lib/server/auth';
 import { apiCall, ok } from '$lib/server/api/call';
 import { endpoints } from '$lib/server/api/endpoints';
-import { readJson } from '$lib/server/api/input';
+import { readJsonText } from '$lib/server/api/input';
 import { solveForCaller } from '$lib/server/api/solves';
 import type { RequestHandler } from './$types';
 
@@ -13,8 +13,7 @@ export const POST: RequestHandler = (event) =>
 		event,
 		async () => {
 			const caller = await requireApiCaller(event, ...route.roles);
-			const request = await readJson(event.request, route.body.schema);
-			return ok(await solveForCaller(caller, request));
+			return ok(await solveForCaller(caller, await readJsonText(event.request, route.body.schema)));
 		},
 		{ auditedOnSuccess: true }
 	);
