@@ -86,10 +86,32 @@ function piecesOf(ticks: number[], coefficients: Dec[]): Piece[] {
 	return pieces;
 }
 
-type FractionTerms = { fraction: Dec; byTick: Map<number, Dec> };
+/** Amounts at a position (ticks, or time in unit periods). */
+type Entry = { at: number; amount: Dec };
+
+type FractionTerms = { fraction: Dec; entries: Entry[] };
 
 function gcd(a: number, b: number): number {
 	return b === 0 ? a : gcd(b, a % b);
+}
+
+/**
+ * Entries in ascending position (a stable sort, skipped when they already are, as a schedule's
+ * usually are), amounts at the same position summed, zero sums dropped.
+ */
+function summedInOrder(entries: Entry[]): Entry[] {
+	let ordered = true;
+	for (let i = 1; ordered && i < entries.length; i += 1) {
+		ordered = entries[i - 1].at <= entries[i].at;
+	}
+	if (!ordered) entries.sort((x, y) => x.at - y.at);
+	const summed: Entry[] = [];
+	let last: Entry | undefined;
+	for (const { at, amount } of entries) {
+		if (last && last.at === at) last.amount = last.amount.plus(amount);
+		else summed.push((last = { at, amount }));
+	}
+	return summed.filter((entry) => !entry.amount.isZero());
 }
 
 /** Groups terms by fraction and tick, sums same-time amounts, and finds closed-form runs. */
@@ -99,7 +121,7 @@ export function buildSchedule(
 	unitsPerYear: number
 ): Schedule {
 	const byFraction = new Map<string, FractionTerms>();
-	const byTime = new Map<number, Dec>();
+	const byTime: Entry[] = [];
 	let maxFraction = 0;
 	// Consecutive terms usually share their fraction: reuse the last group without a lookup.
 	let last: { numerator: number; denominator: number; group: FractionTerms } | null = null;
@@ -114,55 +136,46 @@ export function buildSchedule(
 			const key = numerator === 0 ? '0' : `${numerator / divisor}/${denominator / divisor}`;
 			group = byFraction.get(key);
 			if (!group) {
-				group = { fraction: new Dec(numerator).div(denominator), byTick: new Map() };
+				group = { fraction: new Dec(numerator).div(denominator), entries: [] };
 				byFraction.set(key, group);
 			}
 			last = { numerator, denominator, group };
 		}
-		const atTick = group.byTick.get(term.ticks);
-		group.byTick.set(term.ticks, atTick === undefined ? term.amount : atTick.plus(term.amount));
-		const time = term.ticks + numerator / denominator;
-		const atTime = byTime.get(time);
-		byTime.set(time, atTime === undefined ? term.amount : atTime.plus(term.amount));
+		group.entries.push({ at: term.ticks, amount: term.amount });
+		byTime.push({ at: term.ticks + numerator / denominator, amount: term.amount });
 		maxFraction = Math.max(maxFraction, numerator / denominator);
 	}
 	const groups: FractionGroup[] = [];
 	let maxTicks = 0;
-	const asNumber = new Map<Dec, number>();
-	const numberOf = (value: Dec) => {
-		let cached = asNumber.get(value);
-		if (cached === undefined) {
-			cached = value.toNumber();
-			asNumber.set(value, cached);
-		}
-		return cached;
-	};
-	for (const { fraction, byTick } of byFraction.values()) {
-		const entries = [...byTick.entries()].filter(([, sum]) => !sum.isZero());
-		if (entries.length === 0) continue;
-		entries.sort((a, b) => a[0] - b[0]);
-		const ticks = entries.map(([tick]) => tick);
-		const coefficients = entries.map(([, sum]) => sum);
+	for (const { fraction, entries } of byFraction.values()) {
+		const summed = summedInOrder(entries);
+		if (summed.length === 0) continue;
+		const ticks = summed.map((entry) => entry.at);
+		const coefficients = summed.map((entry) => entry.amount);
 		maxTicks = Math.max(maxTicks, ticks[ticks.length - 1]);
+		// Runs of one amount share its Dec: convert each run once.
+		const values = new Float64Array(coefficients.length);
+		let previous: Dec | undefined;
+		let previousValue = 0;
+		coefficients.forEach((coefficient, i) => {
+			if (coefficient !== previous) previousValue = (previous = coefficient).toNumber();
+			values[i] = previousValue;
+		});
 		groups.push({
 			fraction,
 			fractionValue: fraction.toNumber(),
 			pieces: piecesOf(ticks, coefficients),
 			ticks: Float64Array.from(ticks),
-			coefficients: Float64Array.from(coefficients, numberOf),
-			magnitudes: Float64Array.from(coefficients, (c) => Math.abs(numberOf(c)))
+			coefficients: values,
+			magnitudes: values.map(Math.abs)
 		});
 	}
-	const timeOrdered = [...byTime.entries()]
-		.sort((a, b) => a[0] - b[0])
-		.map(([, sum]) => sum)
-		.filter((sum) => !sum.isZero());
 	return {
 		ticksPerUnit,
 		unitsPerYear,
 		groups,
 		maxTicks,
-		timeOrdered,
+		timeOrdered: summedInOrder(byTime).map((entry) => entry.amount),
 		compound: maxFraction === 0,
 		maxFraction,
 		termCount: terms.length

@@ -18,11 +18,13 @@ export interface UniquenessReport {
 	explanation: string;
 }
 
-export function countSignChanges(values: readonly Dec[]): number {
+const signOf = (value: Dec) => (value.isZero() ? 0 : value.isNeg() ? -1 : 1);
+
+/** Sign changes in a sequence of signs (−1, 0, 1), zeros skipped. */
+function changesIn(signs: readonly number[]): number {
 	let changes = 0;
 	let previous = 0;
-	for (const value of values) {
-		const sign = value.isZero() ? 0 : value.isNeg() ? -1 : 1;
+	for (const sign of signs) {
 		if (sign === 0) continue;
 		if (previous !== 0 && sign !== previous) changes += 1;
 		previous = sign;
@@ -30,9 +32,8 @@ export function countSignChanges(values: readonly Dec[]): number {
 	return changes;
 }
 
-function cumulative(values: readonly Dec[]): Dec[] {
-	let running = ZERO;
-	return values.map((value) => (running = running.plus(value)));
+export function countSignChanges(values: readonly Dec[]): number {
+	return changesIn(values.map(signOf));
 }
 
 /**
@@ -47,11 +48,16 @@ function cumulative(values: readonly Dec[]): Dec[] {
 export function uniqueness(schedule: Schedule): UniquenessReport {
 	const flows = schedule.timeOrdered;
 	const signChanges = countSignChanges(flows);
-	const forward = cumulative(flows);
-	const finalSum = forward.length > 0 ? forward[forward.length - 1] : ZERO;
-	const reverse = cumulative([...flows].reverse());
+	const forward: Dec[] = [];
+	let running = ZERO;
+	for (const flow of flows) forward.push((running = running.plus(flow)));
+	const finalSum = running;
 	const cumulativeSignChanges = countSignChanges(forward);
-	const reverseCumulativeSignChanges = countSignChanges(reverse);
+	// Summed from the last flow backwards, the sum from flow k on is finalSum − forward[k − 1]:
+	// its sign is a comparison, no second pass of additions.
+	const reverseCumulativeSignChanges = changesIn(
+		flows.map((_, k) => (k === 0 ? signOf(finalSum) : finalSum.cmp(forward[k - 1])))
+	);
 	const holds: UniquenessTest[] = [];
 	let maxRoots: number | null;
 	const parts: string[] = [];
