@@ -8,6 +8,7 @@
 import ExcelJS from 'exceljs';
 import { Dec } from '../solver/decimal';
 import { decodeText, detectDelimiter, parseCsv, type CsvDelimiter } from './upload-csv';
+import { checkZipExpansion, MAX_EXPANDED_BYTES } from './zip-guard';
 
 /** One problem with an upload: the spreadsheet row (header = row 1) and column name if known. */
 export interface UploadError {
@@ -145,20 +146,34 @@ function xlsxCell(cell: ExcelJS.Cell): SheetCell {
 
 /** Reads the first visible worksheet of an xlsx workbook; formulas are kept, never evaluated. */
 export async function xlsxSheet(bytes: Uint8Array): Promise<SheetRead> {
+	const unreadable: SheetRead = {
+		ok: false,
+		errors: [
+			{
+				message:
+					'The file could not be read as an xlsx workbook (it may be damaged). Open it in a spreadsheet and save it again as .xlsx, or export it as CSV.'
+			}
+		]
+	};
+	const expansion = checkZipExpansion(bytes);
+	if (!expansion.ok && expansion.problem === 'too-large') {
+		const part = expansion.entry ? ` (${expansion.entry} alone goes past it)` : '';
+		return {
+			ok: false,
+			errors: [
+				{
+					message: `The workbook unpacks to more than ${MAX_EXPANDED_BYTES / 1024 / 1024} MB${part}, far more than a schedule of flows needs. Save a copy holding only the sheet with the flows, or export that sheet as CSV.`
+				}
+			]
+		};
+	}
+	if (!expansion.ok) return unreadable;
 	const workbook = new ExcelJS.Workbook();
 	try {
 		// A copy with its own ArrayBuffer: the zip reader accepts it, and exceljs's types want one.
 		await workbook.xlsx.load(bytes.slice().buffer);
 	} catch {
-		return {
-			ok: false,
-			errors: [
-				{
-					message:
-						'The file could not be read as an xlsx workbook (it may be damaged). Open it in a spreadsheet and save it again as .xlsx, or export it as CSV.'
-				}
-			]
-		};
+		return unreadable;
 	}
 	const worksheet = workbook.worksheets.find((sheet) => sheet.state === 'visible');
 	if (!worksheet) {
