@@ -11,6 +11,18 @@ const server = new URL('../build/index.js', import.meta.url).href;
 const wanted = Number(process.env.PINCER_WORKERS);
 const count = Number.isInteger(wanted) && wanted > 0 ? wanted : availableParallelism();
 
+/**
+ * Node options of the workers: the primary's, with a 64 MB young generation (V8's default is
+ * 16 MB) unless one is given. An API solve allocates about 1 MB and many wait on PostgreSQL
+ * across a scavenge; a bigger young generation scavenges a quarter as often and promotes less
+ * to the old one (bench:api: about 5% less CPU per call).
+ */
+function workerArgs() {
+	const given = [...process.execArgv, ...(process.env.NODE_OPTIONS ?? '').split(/\s+/)];
+	if (given.some((arg) => arg.startsWith('--max-semi-space-size'))) return process.execArgv;
+	return [...process.execArgv, '--max-semi-space-size=64'];
+}
+
 if (count === 1 || !cluster.isPrimary) {
 	// adapter-node announces the end of its graceful shutdown; a worker then lets go of its
 	// channel to the primary, which would otherwise keep it alive.
@@ -54,5 +66,6 @@ if (count === 1 || !cluster.isPrimary) {
 
 	process.on('SIGTERM', () => stop());
 	process.on('SIGINT', () => stop());
+	cluster.setupPrimary({ execArgv: workerArgs() });
 	for (let i = 0; i < count; i += 1) fork();
 }
