@@ -348,7 +348,8 @@ describe('REST API v1', () => {
 		const laidOut = JSON.stringify(request, null, 2).replace('"kind"', '"\\u006bind"');
 		const again = await call('POST', '/solve', { key: keys.officer.key, body: laidOut });
 		expect(again.status).toBe(200);
-		const [row] = await sql`select request::text as text from solves where id = ${again.body.id}`;
+		const [row] =
+			await sql`select request::text as text from solves where id = ${String(again.body.id)}`;
 		expect(row.text).toBe(laidOut);
 		const readBack = await call('GET', `/solves/${again.body.id}`, { key: keys.reviewer.key });
 		expect(readBack.body.request).toEqual(request);
