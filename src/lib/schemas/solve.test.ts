@@ -39,6 +39,17 @@ describe('solveRequestSchema', () => {
 			}
 		];
 		for (const request of ok) expect(messages(request)).toEqual([]);
+		// The API stores a solve's body as it came (api/solves.ts): that is only the request
+		// validated if parsing adds nothing and changes nothing (no defaults, no transforms).
+		const bare = [
+			{ kind: 'irr', flows: ['-1000', '1100'] },
+			{ kind: 'dated-irr', flows: [{ date: '2024-01-01', amount: '-10' }] },
+			{ kind: 'apr-us', advances: ok[2].advances, payments: ok[2].payments },
+			{ kind: 'aprc-eu', drawdowns: ok[3].drawdowns, repayments: ok[3].repayments }
+		];
+		for (const request of [...ok, ...bare]) {
+			expect(solveRequestSchema.parse(request)).toStrictEqual(request);
+		}
 	});
 
 	it('rejects empty flows, naming the field', () => {
